@@ -10,7 +10,7 @@ export default defineConfig({
     },
   },
   test: {
-    include: ["lib/**/*.test.ts", "db/**/*.test.ts", "tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
+    include: ["lib/**/*.test.ts", "db/**/*.test.ts", "scripts/**/*.test.ts", "tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
     environment: "node",
     testTimeout: 20_000,
   },

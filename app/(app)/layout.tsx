@@ -1,0 +1,3 @@
+export default function SignedInLayout({ children }: { children: React.ReactNode }) {
+  return <div className="mx-auto w-full max-w-6xl px-4 py-8">{children}</div>;
+}

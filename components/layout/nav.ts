@@ -1,0 +1,5 @@
+/** Public sections shown in the main navigation; each entry is a page that exists. */
+export const PUBLIC_NAV: { href: string; label: string }[] = [
+  { href: "/#how-it-works", label: "How it works" },
+  { href: "/safety", label: "Safety" },
+];

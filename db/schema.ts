@@ -1,0 +1,228 @@
+import { relations, sql } from "drizzle-orm";
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+
+const createdAt = () =>
+  integer("created_at", { mode: "timestamp_ms" })
+    .notNull()
+    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`);
+const updatedAt = () =>
+  integer("updated_at", { mode: "timestamp_ms" })
+    .notNull()
+    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`)
+    .$onUpdate(() => new Date());
+
+// ---------------------------------------------------------------------------
+// Sign-in tables, in the shape better-auth's Drizzle adapter expects
+// (model names user, session, account, verification, rateLimit).
+// ---------------------------------------------------------------------------
+export const user = sqliteTable("user", {
+  id: text("id").primaryKey(),
+  name: text("name").notNull(),
+  email: text("email").notNull().unique(),
+  emailVerified: integer("email_verified", { mode: "boolean" }).notNull().default(false),
+  image: text("image"),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export const session = sqliteTable(
+  "session",
+  {
+    id: text("id").primaryKey(),
+    expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+    token: text("token").notNull().unique(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    ipAddress: text("ip_address"),
+    userAgent: text("user_agent"),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+  },
+  (t) => [index("session_user_id_idx").on(t.userId)],
+);
+
+export const account = sqliteTable(
+  "account",
+  {
+    id: text("id").primaryKey(),
+    accountId: text("account_id").notNull(),
+    providerId: text("provider_id").notNull(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    accessToken: text("access_token"),
+    refreshToken: text("refresh_token"),
+    idToken: text("id_token"),
+    accessTokenExpiresAt: integer("access_token_expires_at", { mode: "timestamp_ms" }),
+    refreshTokenExpiresAt: integer("refresh_token_expires_at", { mode: "timestamp_ms" }),
+    scope: text("scope"),
+    password: text("password"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("account_user_id_idx").on(t.userId)],
+);
+
+export const verification = sqliteTable(
+  "verification",
+  {
+    id: text("id").primaryKey(),
+    identifier: text("identifier").notNull(),
+    value: text("value").notNull(),
+    expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("verification_identifier_idx").on(t.identifier)],
+);
+
+// Rate-limit counters live in the database so that several app instances share them.
+export const rateLimit = sqliteTable("rate_limit", {
+  id: text("id").primaryKey(),
+  key: text("key").notNull().unique(),
+  count: integer("count").notNull(),
+  lastRequest: integer("last_request").notNull(),
+});
+
+// ---------------------------------------------------------------------------
+// Roles and profiles
+// ---------------------------------------------------------------------------
+export const ROLES = ["farmer", "hatchery", "builder", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const userRole = sqliteTable(
+  "user_role",
+  {
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    role: text("role", { enum: ROLES }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.role] })],
+);
+
+export const VERIFICATION_STATES = ["unverified", "pending", "verified", "rejected"] as const;
+export type VerificationState = (typeof VERIFICATION_STATES)[number];
+
+export const profile = sqliteTable(
+  "profile",
+  {
+    userId: text("user_id")
+      .primaryKey()
+      .references(() => user.id, { onDelete: "cascade" }),
+    displayName: text("display_name").notNull(),
+    phone: text("phone"), // E.164, e.g. +260971234567
+    region: text("region").notNull(),
+    lat: real("lat"),
+    lng: real("lng"),
+    // Providers may show an approximate point (rounded to ~1 km) instead of the exact one.
+    showApproximateLocation: integer("show_approximate_location", { mode: "boolean" }).notNull().default(true),
+    about: text("about"),
+    avatarImageId: text("avatar_image_id"),
+    verificationState: text("verification_state", { enum: VERIFICATION_STATES }).notNull().default("unverified"),
+    onboardedAt: integer("onboarded_at", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("profile_lat_lng_idx").on(t.lat, t.lng)],
+);
+
+export const SPECIES = ["tilapia", "catfish"] as const;
+export type Species = (typeof SPECIES)[number];
+export const TANK_TYPES = ["tarpaulin", "concrete", "earthen"] as const;
+export type TankType = (typeof TANK_TYPES)[number];
+
+export const hatchery = sqliteTable("hatchery", {
+  userId: text("user_id")
+    .primaryKey()
+    .references(() => profile.userId, { onDelete: "cascade" }),
+  species: text("species", { mode: "json" }).$type<Species[]>().notNull().default(sql`'[]'`),
+  delivers: integer("delivers", { mode: "boolean" }).notNull().default(false),
+  deliveryRadiusKm: integer("delivery_radius_km").notNull().default(0),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export const builder = sqliteTable("builder", {
+  userId: text("user_id")
+    .primaryKey()
+    .references(() => profile.userId, { onDelete: "cascade" }),
+  serviceRadiusKm: integer("service_radius_km").notNull().default(30),
+  currency: text("currency").notNull().default("ZMW"),
+  baseFeeMinor: integer("base_fee_minor").notNull().default(0),
+  travelRatePerKmMinor: integer("travel_rate_per_km_minor").notNull().default(0),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+// A builder's price sheet: materials and labour per square metre of tank floor, per tank type.
+export const builderPrice = sqliteTable(
+  "builder_price",
+  {
+    builderId: text("builder_id")
+      .notNull()
+      .references(() => builder.userId, { onDelete: "cascade" }),
+    tankType: text("tank_type", { enum: TANK_TYPES }).notNull(),
+    materialsPerSqmMinor: integer("materials_per_sqm_minor").notNull(),
+    labourPerSqmMinor: integer("labour_per_sqm_minor").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.builderId, t.tankType] })],
+);
+
+// Demo and uploaded images. Only processed (re-encoded, metadata-free) variants are served.
+export const image = sqliteTable(
+  "image",
+  {
+    id: text("id").primaryKey(),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    kind: text("kind").notNull(),
+    keyPrefix: text("key_prefix").notNull(),
+    widths: text("widths", { mode: "json" }).$type<number[]>().notNull(),
+    width: integer("width").notNull(),
+    height: integer("height").notNull(),
+    alt: text("alt").notNull().default(""),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("image_key_prefix_idx").on(t.keyPrefix), index("image_owner_idx").on(t.ownerId)],
+);
+
+export const userRelations = relations(user, ({ one, many }) => ({
+  profile: one(profile, { fields: [user.id], references: [profile.userId] }),
+  roles: many(userRole),
+}));
+export const userRoleRelations = relations(userRole, ({ one }) => ({
+  user: one(user, { fields: [userRole.userId], references: [user.id] }),
+}));
+export const profileRelations = relations(profile, ({ one }) => ({
+  user: one(user, { fields: [profile.userId], references: [user.id] }),
+  hatchery: one(hatchery, { fields: [profile.userId], references: [hatchery.userId] }),
+  builder: one(builder, { fields: [profile.userId], references: [builder.userId] }),
+}));
+export const builderRelations = relations(builder, ({ many }) => ({
+  prices: many(builderPrice),
+}));
+export const builderPriceRelations = relations(builderPrice, ({ one }) => ({
+  builder: one(builder, { fields: [builderPrice.builderId], references: [builder.userId] }),
+}));
+
+export type User = typeof user.$inferSelect;
+export type Profile = typeof profile.$inferSelect;
+
+// Append-only record of admin decisions and money movements. Rows are never updated or deleted.
+export const auditLog = sqliteTable(
+  "audit_log",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    actorId: text("actor_id").references(() => user.id, { onDelete: "set null" }),
+    action: text("action").notNull(),
+    subjectType: text("subject_type").notNull(),
+    subjectId: text("subject_id").notNull(),
+    detail: text("detail", { mode: "json" }).$type<Record<string, unknown>>(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("audit_subject_idx").on(t.subjectType, t.subjectId)],
+);

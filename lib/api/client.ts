@@ -1,0 +1,30 @@
+/** The one fetch helper of the browser side: JSON in, a result value out, never a throw for expected failures. */
+export type ApiResult<T> =
+  | { ok: true; data: T }
+  | { ok: false; status: number; message: string; fieldErrors?: Record<string, string[]> };
+
+async function send<T>(method: string, url: string, body?: unknown): Promise<ApiResult<T>> {
+  let response: Response;
+  try {
+    response = await fetch(url, {
+      method,
+      headers: body === undefined ? undefined : { "content-type": "application/json" },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
+  } catch {
+    return { ok: false, status: 0, message: "You seem to be offline. Nothing was lost: check your connection and try again." };
+  }
+  const json: unknown = await response.json().catch(() => null);
+  if (response.ok) return { ok: true, data: json as T };
+  const err = (json as { error?: { message?: string; fieldErrors?: Record<string, string[]> } } | null)?.error;
+  return {
+    ok: false,
+    status: response.status,
+    message: err?.message ?? `The server answered ${response.status}. Try again.`,
+    fieldErrors: err?.fieldErrors,
+  };
+}
+
+export const getJson = <T,>(url: string) => send<T>("GET", url);
+export const postJson = <T = unknown,>(url: string, body: unknown) => send<T>("POST", url, body);
+export const putJson = <T = unknown,>(url: string, body: unknown) => send<T>("PUT", url, body);

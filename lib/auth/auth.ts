@@ -1,0 +1,77 @@
+import "server-only";
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { nextCookies } from "better-auth/next-js";
+import { db } from "@/db/client";
+import * as schema from "@/db/schema";
+import { env } from "@/lib/env";
+import { sendMail } from "@/lib/mail/send-mail";
+
+function localTwin(origin: string): string[] {
+  // The same server answers on localhost and 127.0.0.1; accept both spellings of our own origin.
+  const u = new URL(origin);
+  if (u.hostname === "localhost") return [origin, `${u.protocol}//127.0.0.1${u.port ? `:${u.port}` : ""}`];
+  if (u.hostname === "127.0.0.1") return [origin, `${u.protocol}//localhost${u.port ? `:${u.port}` : ""}`];
+  return [origin];
+}
+
+function deliver(kind: string, send: () => Promise<unknown>): void {
+  // Not awaited, so the reply does not reveal through its timing whether an account exists.
+  send().catch((error: unknown) => console.error(`[mail] ${kind} failed`, error));
+}
+
+export const auth = betterAuth({
+  appName: "Shoal",
+  baseURL: env.APP_URL,
+  secret: env.BETTER_AUTH_SECRET,
+  trustedOrigins: localTwin(env.APP_URL),
+  telemetry: { enabled: false },
+  database: drizzleAdapter(db, {
+    provider: "sqlite",
+    schema: {
+      user: schema.user,
+      session: schema.session,
+      account: schema.account,
+      verification: schema.verification,
+      rateLimit: schema.rateLimit,
+    },
+  }),
+  emailAndPassword: {
+    enabled: true,
+    requireEmailVerification: true,
+    minPasswordLength: 10,
+    maxPasswordLength: 128,
+    resetPasswordTokenExpiresIn: 60 * 60,
+    revokeSessionsOnPasswordReset: true,
+    sendResetPassword: async ({ user, url }) => {
+      deliver("reset-password", () => sendMail({ name: "reset-password", data: { name: user.name, url } }, user.email));
+    },
+  },
+  emailVerification: {
+    sendOnSignUp: true,
+    sendOnSignIn: true,
+    autoSignInAfterVerification: true,
+    expiresIn: 24 * 60 * 60,
+    sendVerificationEmail: async ({ user, url }) => {
+      deliver("verify-email", () => sendMail({ name: "verify-email", data: { name: user.name, url } }, user.email));
+    },
+  },
+  session: {
+    expiresIn: 60 * 60 * 24 * 30,
+    updateAge: 60 * 60 * 24,
+  },
+  rateLimit: {
+    enabled: true,
+    storage: "database",
+    window: 60,
+    max: 200,
+    customRules: {
+      "/sign-in/email": { window: 60, max: 30 },
+      "/sign-up/email": { window: 60, max: 20 },
+      "/request-password-reset": { window: 60, max: 5 },
+    },
+  },
+  plugins: [nextCookies()],
+});
+
+export type AuthSession = typeof auth.$Infer.Session;

@@ -1,0 +1,29 @@
+import { rmSync } from "node:fs";
+import { spawn } from "node:child_process";
+
+// The server Playwright starts: the demo runner on test ports with a fresh data
+// folder, so tests never touch the demo's database or outbox.
+const dir = "data/e2e";
+rmSync(dir, { recursive: true, force: true });
+const env = {
+  ...process.env,
+  APP_URL: "http://localhost:3100",
+  DATABASE_URL: `file:./${dir}/shoal.db`,
+  S3_ENDPOINT: "http://127.0.0.1:4571",
+  S3_FAKE_PORT: "4571",
+  S3_FAKE_DATA: `./${dir}/s3`,
+  RESEND_BASE_URL: "http://127.0.0.1:4611",
+  MAIL_FAKE_PORT: "4611",
+  MAIL_FAKE_DATA: `./${dir}/mail`,
+  STRIPE_API_BASE: "http://127.0.0.1:4621",
+  PAYMENTS_FAKE_PORT: "4621",
+  PAYMENTS_FAKE_DATA: `./${dir}/payments`,
+  PAYMENTS_WEBHOOK_URL: "http://127.0.0.1:3100/api/webhooks/stripe",
+  DEV_OUTBOX: "true",
+  NEXT_TELEMETRY_DISABLED: "1",
+};
+const child = spawn(process.execPath, ["node_modules/tsx/dist/cli.mjs", "scripts/demo.ts"], { stdio: "inherit", env });
+const stop = () => child.kill("SIGTERM");
+process.on("SIGINT", stop);
+process.on("SIGTERM", stop);
+child.on("exit", (code) => process.exit(code ?? 0));
