@@ -4,6 +4,7 @@ import { hashPassword } from "better-auth/crypto";
 import { randomUUID } from "node:crypto";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
+import { sql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/libsql";
 import sharp from "sharp";
 import { encodeVariants, variantKey } from "../lib/storage/variants";
@@ -205,9 +206,14 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
       await addProfile(id, { displayName: name, town, spreadKm: 12, provider: false, state: "unverified" });
     }
 
-    const total = 1 + COUNTS.hatcheries + COUNTS.builders + COUNTS.farmers;
+    const byRole = await db
+      .select({ role: schema.userRole.role, n: sql<number>`count(*)` })
+      .from(schema.userRole)
+      .groupBy(schema.userRole.role);
+    const users = await db.select({ n: sql<number>`count(*)` }).from(schema.user);
+    const count = (role: schema.Role) => Number(byRole.find((r) => r.role === role)?.n ?? 0);
     return [
-      `seeded ${total} demo accounts (${COUNTS.hatcheries} hatcheries, ${COUNTS.builders + 1} builders, ${COUNTS.farmers + 1} farmers, 1 admin)`,
+      `seeded ${Number(users[0]?.n ?? 0)} demo accounts: ${count("hatchery")} hatcheries, ${count("builder")} builders, ${count("farmer")} farmers, ${count("admin")} admin (one account can hold several roles)`,
       `password for every demo account: ${DEMO_PASSWORD}`,
       ...Object.entries(DEMO_ACCOUNTS).map(([role, email]) => `  ${role.padEnd(16)} ${email}`),
     ].join("\n");

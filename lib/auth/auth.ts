@@ -1,11 +1,13 @@
 import "server-only";
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { APIError, createAuthMiddleware } from "better-auth/api";
 import { nextCookies } from "better-auth/next-js";
 import { db } from "@/db/client";
 import * as schema from "@/db/schema";
 import { env } from "@/lib/env";
 import { sendMail } from "@/lib/mail/send-mail";
+import { signUpServerSchema } from "@/lib/validations/profile";
 
 function localTwin(origin: string): string[] {
   // The same server answers on localhost and 127.0.0.1; accept both spellings of our own origin.
@@ -70,6 +72,17 @@ export const auth = betterAuth({
       "/sign-up/email": { window: 60, max: 20 },
       "/request-password-reset": { window: 60, max: 5 },
     },
+  },
+  hooks: {
+    // The sign-up form's rules hold on the server too, for requests that skip the form.
+    before: createAuthMiddleware(async (ctx) => {
+      if (ctx.path !== "/sign-up/email") return;
+      const parsed = signUpServerSchema.safeParse(ctx.body);
+      if (!parsed.success) {
+        const issue = parsed.error.issues[0];
+        throw new APIError("BAD_REQUEST", { message: issue ? `${issue.path.join(".")}: ${issue.message}` : "Invalid sign-up" });
+      }
+    }),
   },
   plugins: [nextCookies()],
 });

@@ -36,13 +36,15 @@ export const onboardingSchema = z
 export type OnboardingInput = z.input<typeof onboardingSchema>;
 export type OnboardingData = z.output<typeof onboardingSchema>;
 
-export const signUpSchema = z
-  .object({
-    name: displayName,
-    email: z.email("Enter a valid e-mail address").max(254),
-    password: z.string().min(10, "Use at least 10 characters").max(128, "At most 128 characters"),
-    confirm: z.string(),
-  })
+/** What the server checks on a sign-up request (the confirm field stays in the browser). */
+export const signUpServerSchema = z.object({
+  name: displayName,
+  email: z.email("Enter a valid e-mail address").max(254),
+  password: z.string().min(10, "Use at least 10 characters").max(128, "At most 128 characters"),
+});
+
+export const signUpSchema = signUpServerSchema
+  .extend({ confirm: z.string() })
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ" });
 
 export const signInSchema = z.object({

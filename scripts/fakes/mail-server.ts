@@ -448,7 +448,7 @@ export async function startMailServer(options: MailServerOptions): Promise<Runni
 if (isMainModule(import.meta.url)) {
   const port = parsePort(process.env.MAIL_FAKE_PORT, 4610);
   const dataDir = process.env.MAIL_FAKE_DATA ?? "./data/mail";
-  const running = await startMailServer({ port, dataDir, apiKey: process.env.MAIL_FAKE_API_KEY || undefined });
+  const running = await startMailServer({ port, host: process.env.MAIL_FAKE_HOST ?? "127.0.0.1", dataDir, apiKey: process.env.MAIL_FAKE_API_KEY || undefined });
   console.log(`[mail-fake] listening on ${running.url} (data in ${resolve(dataDir)})`);
   const stop = () => {
     running.close().then(

@@ -357,7 +357,7 @@ if (isMainModule(import.meta.url)) {
   const webhookEnv = process.env.PAYMENTS_WEBHOOK_URL;
   // An explicitly empty PAYMENTS_WEBHOOK_URL turns delivery off; unset means the local app.
   const webhookUrl = webhookEnv === undefined ? "http://127.0.0.1:3000/api/webhooks/stripe" : webhookEnv || undefined;
-  const running = await startPaymentsServer({ port, dataDir, secretKey, webhookSecret, webhookUrl });
+  const running = await startPaymentsServer({ port, host: process.env.PAYMENTS_FAKE_HOST ?? "127.0.0.1", dataDir, secretKey, webhookSecret, webhookUrl });
   console.log(
     `[payments-fake] listening on ${running.url} (data in ${resolve(dataDir)}; webhooks ${webhookUrl ?? "off"})`,
   );

@@ -1,0 +1,65 @@
+// Who may open what: every page and route handler under app/, with the status each
+// kind of visitor gets. The matrix spec checks every cell against the running app
+// and fails when a route file exists that this table does not list.
+
+export const VISITORS = ["signedOut", "farmer", "hatchery", "builder", "admin"] as const;
+export type Visitor = (typeof VISITORS)[number];
+
+type Expect = number | Partial<Record<Visitor, number>> & { default: number };
+
+export type AccessRow = {
+  /** The route as in app/ (route groups removed), e.g. /api/v1/me or /dev/outbox/[id]. */
+  route: string;
+  method: "GET" | "POST" | "PUT";
+  /** The concrete URL requested. */
+  url: string;
+  body?: unknown;
+  expect: Expect;
+};
+
+const ALL_200 = 200;
+const SIGNED_IN_PAGE = { default: 200, signedOut: 307 };
+const roleOnlyPage = (who: Visitor) => ({ default: 403, signedOut: 307, [who]: 200 });
+const roleOnlyApi = (who: Visitor, ok = 200) => ({ default: 403, signedOut: 401, [who]: ok });
+
+export const ACCESS_TABLE: AccessRow[] = [
+  // Public pages
+  { route: "/", method: "GET", url: "/", expect: ALL_200 },
+  { route: "/safety", method: "GET", url: "/safety", expect: ALL_200 },
+  { route: "/sign-in", method: "GET", url: "/sign-in", expect: ALL_200 },
+  { route: "/sign-up", method: "GET", url: "/sign-up", expect: ALL_200 },
+  { route: "/check-email", method: "GET", url: "/check-email?email=a%40b.test", expect: ALL_200 },
+  { route: "/forgot-password", method: "GET", url: "/forgot-password", expect: ALL_200 },
+  { route: "/reset-password", method: "GET", url: "/reset-password?token=nope", expect: ALL_200 },
+  { route: "/dev/outbox", method: "GET", url: "/dev/outbox", expect: ALL_200 },
+  { route: "/dev/outbox/[id]", method: "GET", url: "/dev/outbox/00000000-0000-0000-0000-000000000000", expect: 404 },
+  // Signed-in pages
+  { route: "/dashboard", method: "GET", url: "/dashboard", expect: SIGNED_IN_PAGE },
+  { route: "/onboarding", method: "GET", url: "/onboarding", expect: SIGNED_IN_PAGE },
+  { route: "/admin", method: "GET", url: "/admin", expect: roleOnlyPage("admin") },
+  { route: "/hatchery", method: "GET", url: "/hatchery", expect: roleOnlyPage("hatchery") },
+  { route: "/builder", method: "GET", url: "/builder", expect: roleOnlyPage("builder") },
+  // Route handlers
+  { route: "/api/health", method: "GET", url: "/api/health", expect: ALL_200 },
+  { route: "/api/auth/[...all]", method: "GET", url: "/api/auth/get-session", expect: ALL_200 },
+  { route: "/api/images/[id]/[file]", method: "GET", url: "/api/images/00000000-0000-0000-0000-000000000000/320.webp", expect: 404 },
+  { route: "/api/v1/me", method: "GET", url: "/api/v1/me", expect: { default: 200, signedOut: 401 } },
+  // An empty body: signed-in users get 400 (the field named), nobody's profile changes.
+  { route: "/api/v1/onboarding", method: "POST", url: "/api/v1/onboarding", body: {}, expect: { default: 400, signedOut: 401 } },
+  { route: "/api/v1/hatchery/profile", method: "GET", url: "/api/v1/hatchery/profile", expect: roleOnlyApi("hatchery") },
+  { route: "/api/v1/hatchery/profile", method: "PUT", url: "/api/v1/hatchery/profile", body: {}, expect: roleOnlyApi("hatchery", 400) },
+  { route: "/api/v1/builder/profile", method: "GET", url: "/api/v1/builder/profile", expect: roleOnlyApi("builder") },
+  { route: "/api/v1/builder/profile", method: "PUT", url: "/api/v1/builder/profile", body: {}, expect: roleOnlyApi("builder", 400) },
+  {
+    route: "/api/v1/admin/providers/[id]/verification",
+    method: "POST",
+    url: "/api/v1/admin/providers/no-such-provider/verification",
+    body: { decision: "verified" },
+    expect: roleOnlyApi("admin", 404),
+  },
+];
+
+export function expected(row: AccessRow, who: Visitor): number {
+  if (typeof row.expect === "number") return row.expect;
+  return row.expect[who] ?? row.expect.default;
+}
