@@ -2,6 +2,8 @@ import type { NextConfig } from "next";
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
+  // Lets two builds (say, two test runs) live side by side.
+  distDir: process.env.NEXT_DIST_DIR ?? ".next",
   // Native or server-only packages stay outside the server bundle.
   serverExternalPackages: ["@libsql/client", "libsql", "sharp", "s3rver"],
   experimental: {

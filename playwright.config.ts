@@ -1,9 +1,9 @@
 import { defineConfig, devices } from "@playwright/test";
 
+import { E2E_BASE_URL } from "./tests/e2e/ports";
+
 // End-to-end tests drive a production build in Debian's chromium. The test server
 // runs on its own ports with a fresh database and stand-in data under data/e2e.
-const PORT = 3100;
-export const E2E_BASE_URL = `http://localhost:${PORT}`;
 
 const chromiumArgs = [
   "--no-sandbox",

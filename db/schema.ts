@@ -1,5 +1,6 @@
 import { relations, sql } from "drizzle-orm";
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { BATCH_STATES, LISTING_KINDS, ROLES, SPECIES, TANK_TYPES, VERIFICATION_STATES, type Species } from "../lib/catalog";
+import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 
 const createdAt = () =>
   integer("created_at", { mode: "timestamp_ms" })
@@ -88,8 +89,6 @@ export const rateLimit = sqliteTable("rate_limit", {
 // ---------------------------------------------------------------------------
 // Roles and profiles
 // ---------------------------------------------------------------------------
-export const ROLES = ["farmer", "hatchery", "builder", "admin"] as const;
-export type Role = (typeof ROLES)[number];
 
 export const userRole = sqliteTable(
   "user_role",
@@ -103,8 +102,6 @@ export const userRole = sqliteTable(
   (t) => [primaryKey({ columns: [t.userId, t.role] })],
 );
 
-export const VERIFICATION_STATES = ["unverified", "pending", "verified", "rejected"] as const;
-export type VerificationState = (typeof VERIFICATION_STATES)[number];
 
 export const profile = sqliteTable(
   "profile",
@@ -129,10 +126,6 @@ export const profile = sqliteTable(
   (t) => [index("profile_lat_lng_idx").on(t.lat, t.lng)],
 );
 
-export const SPECIES = ["tilapia", "catfish"] as const;
-export type Species = (typeof SPECIES)[number];
-export const TANK_TYPES = ["tarpaulin", "concrete", "earthen"] as const;
-export type TankType = (typeof TANK_TYPES)[number];
 
 export const hatchery = sqliteTable("hatchery", {
   userId: text("user_id")
@@ -225,4 +218,83 @@ export const auditLog = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index("audit_subject_idx").on(t.subjectType, t.subjectId)],
+);
+
+// ---------------------------------------------------------------------------
+// Listings: one row per provider role (a hatchery, a builder), denormalised for the
+// nearby search. Kept in step with the profile tables by lib/listings/sync.ts; the
+// R*Tree index listing_rtree (created in a custom migration, kept by triggers) holds
+// each listing's point for the bounding-box pre-filter.
+// ---------------------------------------------------------------------------
+
+export const listing = sqliteTable(
+  "listing",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => profile.userId, { onDelete: "cascade" }),
+    kind: text("kind", { enum: LISTING_KINDS }).notNull(),
+    displayName: text("display_name").notNull(),
+    region: text("region").notNull(),
+    // The public point: rounded to about 1 km unless the provider chose to show the exact one.
+    lat: real("lat").notNull(),
+    lng: real("lng").notNull(),
+    verified: integer("verified", { mode: "boolean" }).notNull().default(false),
+    // Bit sets: species tilapia=1, catfish=2; tank types tarpaulin=1, concrete=2, earthen=4.
+    speciesMask: integer("species_mask").notNull().default(0),
+    tankTypeMask: integer("tank_type_mask").notNull().default(0),
+    serviceRadiusKm: integer("service_radius_km").notNull().default(0),
+    avatarImageId: text("avatar_image_id"),
+    trustScore: real("trust_score").notNull().default(0),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("listing_user_kind_idx").on(t.userId, t.kind)],
+);
+
+// A hatchery's batch of fingerlings on offer.
+export const batch = sqliteTable(
+  "batch",
+  {
+    id: text("id").primaryKey(),
+    hatcheryId: text("hatchery_id")
+      .notNull()
+      .references(() => hatchery.userId, { onDelete: "cascade" }),
+    species: text("species", { enum: SPECIES }).notNull(),
+    meanWeightG: real("mean_weight_g").notNull(),
+    meanLengthCm: real("mean_length_cm").notNull(),
+    countTotal: integer("count_total").notNull(),
+    countAvailable: integer("count_available").notNull(),
+    priceMinor: integer("price_minor").notNull(),
+    currency: text("currency").notNull(),
+    readyFrom: integer("ready_from", { mode: "timestamp_ms" }).notNull(),
+    sellBy: integer("sell_by", { mode: "timestamp_ms" }).notNull(),
+    delivery: text("delivery", { enum: ["pickup", "delivery", "both"] }).notNull().default("pickup"),
+    state: text("state", { enum: BATCH_STATES }).notNull().default("open"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index("batch_hatchery_idx").on(t.hatcheryId, t.state, t.sellBy),
+    // The database itself refuses to sell fish that are not there.
+    check("batch_count_available_range", sql`${t.countAvailable} >= 0 AND ${t.countAvailable} <= ${t.countTotal}`),
+  ],
+);
+
+// A saved run of the tank planner. Anyone with the link can read it (the id is a
+// random UUID); only its owner can change or delete it.
+export const plan = sqliteTable(
+  "plan",
+  {
+    id: text("id").primaryKey(),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    // The planner input exactly as lib/validations/planner.ts accepts it (SI units).
+    input: text("input", { mode: "json" }).$type<Record<string, unknown>>().notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("plan_owner_idx").on(t.ownerId)],
 );

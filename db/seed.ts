@@ -4,11 +4,13 @@ import { hashPassword } from "better-auth/crypto";
 import { randomUUID } from "node:crypto";
 import { resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import { sql } from "drizzle-orm";
+import { inArray, sql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/libsql";
 import sharp from "sharp";
+import { refreshListings } from "../lib/listings/sync";
 import { encodeVariants, variantKey } from "../lib/storage/variants";
 import { loadDotEnv } from "../scripts/load-env";
+import type { Role, Species, TankType, VerificationState } from "../lib/catalog";
 import * as schema from "./schema";
 import { BUILDER_NAMES, FIRST_NAMES, HATCHERY_NAMES, SURNAMES, TOWNS, type Town } from "./seed-data";
 
@@ -104,7 +106,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
       return id;
     }
 
-    async function addUser(email: string, name: string, roles: schema.Role[]): Promise<string> {
+    async function addUser(email: string, name: string, roles: Role[]): Promise<string> {
       const id = randomUUID();
       await db.insert(schema.user).values({ id, name, email, emailVerified: true });
       await db.insert(schema.account).values({ id: randomUUID(), accountId: id, providerId: "credential", userId: id, password: passwordHash });
@@ -112,7 +114,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
       return id;
     }
 
-    async function addProfile(userId: string, p: { displayName: string; town: Town; spreadKm: number; about?: string; provider: boolean; state: schema.VerificationState }) {
+    async function addProfile(userId: string, p: { displayName: string; town: Town; spreadKm: number; about?: string; provider: boolean; state: VerificationState }) {
       const at = near(p.town, rand, p.spreadKm);
       const avatarImageId = p.provider ? await uploadAvatar(userId, p.displayName, pick(PALETTE, rand)) : null;
       await db.insert(schema.profile).values({
@@ -142,9 +144,9 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
       const town = TOWNS[i % TOWNS.length] as Town;
       const both = i === 1;
       const email = i === 0 ? DEMO_ACCOUNTS.hatchery : both ? DEMO_ACCOUNTS.hatcheryBuilder : `${slug(name)}@shoal.demo`;
-      const roles: schema.Role[] = both ? ["hatchery", "builder", "farmer"] : ["hatchery"];
+      const roles: Role[] = both ? ["hatchery", "builder", "farmer"] : ["hatchery"];
       const id = await addUser(email, person(), roles);
-      const state: schema.VerificationState = i >= COUNTS.hatcheries - 2 ? "pending" : "verified";
+      const state: VerificationState = i >= COUNTS.hatcheries - 2 ? "pending" : "verified";
       await addProfile(id, {
         displayName: name,
         town,
@@ -153,7 +155,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
         state,
         about: `Family-run hatchery near ${town.name}. Healthy fingerlings raised in clean water, counted in front of you at collection.`,
       });
-      const species: schema.Species[] = i % 3 === 0 ? ["tilapia", "catfish"] : i % 3 === 1 ? ["tilapia"] : ["catfish"];
+      const species: Species[] = i % 3 === 0 ? ["tilapia", "catfish"] : i % 3 === 1 ? ["tilapia"] : ["catfish"];
       const delivers = rand() < 0.5;
       await db.insert(schema.hatchery).values({ userId: id, species, delivers, deliveryRadiusKm: delivers ? 20 + Math.floor(rand() * 60) : 0 });
       if (both) await seedBuilderTerms(id);
@@ -170,7 +172,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
         baseFeeMinor: Math.round((300 + rand() * 500) * 100),
         travelRatePerKmMinor: Math.round((8 + rand() * 7) * 100),
       });
-      const offers: { tankType: schema.TankType; materials: number; labour: number }[] = [
+      const offers: { tankType: TankType; materials: number; labour: number }[] = [
         { tankType: "tarpaulin", materials: 350, labour: 150 },
         { tankType: "concrete", materials: 700, labour: 400 },
         { tankType: "earthen", materials: 300, labour: 900 },
@@ -186,7 +188,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
       const name = BUILDER_NAMES[i] ?? `Builder ${i + 1}`;
       const town = TOWNS[(i * 3 + 1) % TOWNS.length] as Town;
       const id = await addUser(i === 0 ? DEMO_ACCOUNTS.builder : `${slug(name)}@shoal.demo`, person(), i % 5 === 2 ? ["builder", "farmer"] : ["builder"]);
-      const state: schema.VerificationState = i === COUNTS.builders - 1 ? "rejected" : i >= COUNTS.builders - 3 ? "pending" : "verified";
+      const state: VerificationState = i === COUNTS.builders - 1 ? "rejected" : i >= COUNTS.builders - 3 ? "pending" : "verified";
       await addProfile(id, {
         displayName: name,
         town,
@@ -206,12 +208,16 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
       await addProfile(id, { displayName: name, town, spreadKm: 12, provider: false, state: "unverified" });
     }
 
+    // The search reads listings; build them from what was just seeded.
+    const providers = await db.selectDistinct({ id: schema.userRole.userId }).from(schema.userRole).where(inArray(schema.userRole.role, ["hatchery", "builder"]));
+    for (const p of providers) await refreshListings(db, p.id);
+
     const byRole = await db
       .select({ role: schema.userRole.role, n: sql<number>`count(*)` })
       .from(schema.userRole)
       .groupBy(schema.userRole.role);
     const users = await db.select({ n: sql<number>`count(*)` }).from(schema.user);
-    const count = (role: schema.Role) => Number(byRole.find((r) => r.role === role)?.n ?? 0);
+    const count = (role: Role) => Number(byRole.find((r) => r.role === role)?.n ?? 0);
     return [
       `seeded ${Number(users[0]?.n ?? 0)} demo accounts: ${count("hatchery")} hatcheries, ${count("builder")} builders, ${count("farmer")} farmers, ${count("admin")} admin (one account can hold several roles)`,
       `password for every demo account: ${DEMO_PASSWORD}`,

@@ -29,6 +29,8 @@ const envSchema = z.object({
   STRIPE_API_BASE: z.url().default("http://127.0.0.1:4620"),
   STRIPE_WEBHOOK_SECRET: z.string().min(1).default("whsec_local_shoal"),
   MAP_STYLE_URL: z.url().optional(),
+  // Enables the full-scan search strategy that the benchmark compares against. Never in production.
+  SHOAL_BENCH: boolish.default(false),
   DEFAULT_CURRENCY: z.string().regex(/^[A-Z]{3}$/, "ISO 4217 code").default("ZMW"),
 });
 

@@ -42,13 +42,14 @@ ensureChromium();
 mkdirSync("test-results", { recursive: true });
 const env = { ...process.env, NEXT_TELEMETRY_DISABLED: "1" };
 run("npx", ["tsx", "scripts/setup-env.ts"], env);
+if (run("npx", ["tsx", "scripts/prepare-assets.ts"], env) !== 0) process.exit(1);
 
 const unitStatus = run("npx", ["vitest", "run", "--reporter=default", "--reporter=json", "--outputFile=test-results/unit.json"], env);
 const unit = vitestCounts("test-results/unit.json");
 
 let e2e: Counts = { passed: 0, failed: 0, skipped: 0 };
 let e2eStatus = 0;
-const buildStatus = run("npx", ["next", "build"], env);
+const buildStatus = run("npm", ["run", "build"], env);
 if (buildStatus === 0) {
   e2eStatus = run("npx", ["playwright", "test"], env);
   e2e = playwrightCounts("test-results/e2e.json");

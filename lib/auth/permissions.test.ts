@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ROLES, type Role } from "@/db/schema";
+import { ROLES, type Role } from "@/lib/catalog";
 import { PERMISSIONS, can, canEditProfile, decide, isProvider, type Permission } from "./permissions";
 
 const actor = (roles: Role[], id = "u1") => ({ id, roles });

@@ -1,4 +1,4 @@
-import type { Role } from "@/db/schema";
+import type { Role } from "@/lib/catalog";
 
 /**
  * Who may do what. The single table every route handler, server action and

@@ -2,6 +2,7 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { builder, hatchery, profile, userRole } from "@/db/schema";
+import { refreshListings } from "@/lib/listings/sync";
 import type { OnboardingData } from "@/lib/validations/profile";
 
 /**
@@ -36,6 +37,7 @@ export async function completeOnboarding(userId: string, input: OnboardingData):
         .set({ verificationState: "pending" })
         .where(and(eq(profile.userId, userId), eq(profile.verificationState, "unverified")));
     }
+    await refreshListings(tx, userId);
   });
 }
 

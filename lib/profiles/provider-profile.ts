@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { builder, builderPrice, hatchery } from "@/db/schema";
 import { NotFound } from "@/lib/errors";
+import { refreshListings } from "@/lib/listings/sync";
 import type { BuilderProfileInput, HatcheryProfileInput } from "@/lib/validations/provider";
 
 export async function getHatcheryProfile(userId: string): Promise<HatcheryProfileInput | null> {
@@ -11,12 +12,15 @@ export async function getHatcheryProfile(userId: string): Promise<HatcheryProfil
 }
 
 export async function saveHatcheryProfile(userId: string, input: HatcheryProfileInput): Promise<void> {
-  const done = await db
-    .update(hatchery)
-    .set({ species: input.species, delivers: input.delivers, deliveryRadiusKm: input.delivers ? input.deliveryRadiusKm : 0 })
-    .where(eq(hatchery.userId, userId))
-    .returning({ id: hatchery.userId });
-  if (done.length === 0) throw new NotFound("Complete your profile as a hatchery first");
+  await db.transaction(async (tx) => {
+    const done = await tx
+      .update(hatchery)
+      .set({ species: input.species, delivers: input.delivers, deliveryRadiusKm: input.delivers ? input.deliveryRadiusKm : 0 })
+      .where(eq(hatchery.userId, userId))
+      .returning({ id: hatchery.userId });
+    if (done.length === 0) throw new NotFound("Complete your profile as a hatchery first");
+    await refreshListings(tx, userId);
+  });
 }
 
 export async function getBuilderProfile(userId: string): Promise<BuilderProfileInput | null> {
@@ -51,5 +55,6 @@ export async function saveBuilderProfile(userId: string, input: BuilderProfileIn
     if (done.length === 0) throw new NotFound("Complete your profile as a builder first");
     await tx.delete(builderPrice).where(eq(builderPrice.builderId, userId));
     if (input.prices.length) await tx.insert(builderPrice).values(input.prices.map((p) => ({ builderId: userId, ...p })));
+    await refreshListings(tx, userId);
   });
 }

@@ -3,6 +3,7 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { auditLog, profile, user, userRole } from "@/db/schema";
 import { NotFound } from "@/lib/errors";
+import { refreshListings } from "@/lib/listings/sync";
 
 const providerIds = db
   .selectDistinct({ id: userRole.userId })
@@ -64,5 +65,6 @@ export async function decideVerification(adminId: string, providerId: string, de
       subjectId: providerId,
       detail: { from: current.state, to: decision, note: note ?? null },
     });
+    await refreshListings(tx, providerId);
   });
 }

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { SPECIES, TANK_TYPES } from "@/db/schema";
+import { SPECIES, TANK_TYPES } from "@/lib/catalog";
 import { isCurrencyCode } from "@/lib/money/money";
 
 const minor = (label: string, max = 100_000_000) =>
@@ -37,9 +37,3 @@ export const builderProfileSchema = z.object({
 export type HatcheryProfileInput = z.infer<typeof hatcheryProfileSchema>;
 export type BuilderProfileInput = z.infer<typeof builderProfileSchema>;
 
-export const SPECIES_LABEL: Record<(typeof SPECIES)[number], string> = { tilapia: "Nile tilapia", catfish: "African catfish" };
-export const TANK_TYPE_LABEL: Record<(typeof TANK_TYPES)[number], string> = {
-  tarpaulin: "Tarpaulin on frame",
-  concrete: "Concrete",
-  earthen: "Earthen pond",
-};

@@ -11,7 +11,7 @@ export type AccessRow = {
   /** The route as in app/ (route groups removed), e.g. /api/v1/me or /dev/outbox/[id]. */
   route: string;
   method: "GET" | "POST" | "PUT";
-  /** The concrete URL requested. */
+  /** The concrete URL requested; {hatcheryId} and {builderId} stand for the demo providers' ids. */
   url: string;
   body?: unknown;
   expect: Expect;
@@ -46,10 +46,11 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/api/v1/me", method: "GET", url: "/api/v1/me", expect: { default: 200, signedOut: 401 } },
   // An empty body: signed-in users get 400 (the field named), nobody's profile changes.
   { route: "/api/v1/onboarding", method: "POST", url: "/api/v1/onboarding", body: {}, expect: { default: 400, signedOut: 401 } },
-  { route: "/api/v1/hatchery/profile", method: "GET", url: "/api/v1/hatchery/profile", expect: roleOnlyApi("hatchery") },
-  { route: "/api/v1/hatchery/profile", method: "PUT", url: "/api/v1/hatchery/profile", body: {}, expect: roleOnlyApi("hatchery", 400) },
-  { route: "/api/v1/builder/profile", method: "GET", url: "/api/v1/builder/profile", expect: roleOnlyApi("builder") },
-  { route: "/api/v1/builder/profile", method: "PUT", url: "/api/v1/builder/profile", body: {}, expect: roleOnlyApi("builder", 400) },
+  { route: "/api/v1/listings/nearby", method: "GET", url: "/api/v1/listings/nearby?lat=-15.4&lng=28.3&radiusKm=50", expect: ALL_200 },
+  { route: "/api/v1/providers/[id]", method: "GET", url: "/api/v1/providers/{hatcheryId}", expect: ALL_200 },
+  // Owner (or admin) only; an empty body then gets 400 with the fields named, so nothing changes.
+  { route: "/api/v1/providers/[id]/hatchery", method: "PUT", url: "/api/v1/providers/{hatcheryId}/hatchery", body: {}, expect: { default: 403, signedOut: 401, hatchery: 400, admin: 400 } },
+  { route: "/api/v1/providers/[id]/builder", method: "PUT", url: "/api/v1/providers/{builderId}/builder", body: {}, expect: { default: 403, signedOut: 401, builder: 400, admin: 400 } },
   {
     route: "/api/v1/admin/providers/[id]/verification",
     method: "POST",

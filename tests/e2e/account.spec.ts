@@ -1,4 +1,5 @@
 import { expect, test } from "@playwright/test";
+import { E2E_BASE_URL } from "./ports";
 import { countMail, openMailLink, signIn, uniqueEmail, waitForMail, watchConsole } from "./support";
 
 test.describe("account life cycle", () => {
@@ -116,12 +117,12 @@ test.describe("account life cycle", () => {
     // The server refuses the same input sent directly, and no account or e-mail results.
     const direct = uniqueEmail("direct");
     const r = await request.post("/api/auth/sign-up/email", {
-      headers: { origin: "http://localhost:3100" },
+      headers: { origin: E2E_BASE_URL },
       data: { name: "Direct", email: direct, password: "short" },
     });
     expect(r.status()).toBe(400);
     expect(await countMail(request, direct)).toBe(0);
-    const signInAttempt = await request.post("/api/auth/sign-in/email", { headers: { origin: "http://localhost:3100" }, data: { email: direct, password: "short" } });
+    const signInAttempt = await request.post("/api/auth/sign-in/email", { headers: { origin: E2E_BASE_URL }, data: { email: direct, password: "short" } });
     expect(signInAttempt.status()).toBe(401);
   });
 

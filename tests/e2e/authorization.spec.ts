@@ -2,9 +2,10 @@ import { expect, request as newRequest, test, type APIRequestContext } from "@pl
 import { readdirSync, statSync } from "node:fs";
 import { join, relative, sep } from "node:path";
 import { ACCESS_TABLE, expected, VISITORS, type Visitor } from "./access-table";
+import { E2E_BASE_URL } from "./ports";
 import { DEMO, DEMO_PASSWORD } from "./support";
 
-const BASE = "http://localhost:3100";
+const BASE = E2E_BASE_URL;
 
 /** Every page.tsx and route.ts under app/, as its URL pattern (route groups and _private folders removed). */
 function routesInTree(dir = "app"): string[] {
@@ -30,6 +31,7 @@ test("the access table lists every route in app/", () => {
 
 test.describe("authorization matrix", () => {
   const contexts = new Map<Visitor, APIRequestContext>();
+  const ids: Record<string, string> = {};
 
   test.beforeAll(async () => {
     for (const who of VISITORS) {
@@ -37,6 +39,8 @@ test.describe("authorization matrix", () => {
       if (who !== "signedOut") {
         const r = await ctx.post("/api/auth/sign-in/email", { data: { email: DEMO[who], password: DEMO_PASSWORD } });
         expect(r.status(), `sign in as ${who}`).toBe(200);
+        const me = (await (await ctx.get("/api/v1/me")).json()) as { user: { id: string } };
+        ids[`${who}Id`] = me.user.id;
       }
       contexts.set(who, ctx);
     }
@@ -53,7 +57,8 @@ test.describe("authorization matrix", () => {
       for (const who of VISITORS) {
         const ctx = contexts.get(who);
         if (!ctx) throw new Error("no context");
-        const r = await ctx.fetch(row.url, { method: row.method, data: row.body, maxRedirects: 0 });
+        const url = row.url.replace(/\{(\w+)\}/g, (_, key: string) => ids[key] ?? key);
+        const r = await ctx.fetch(url, { method: row.method, data: row.body, maxRedirects: 0 });
         seen[who] = r.status();
         want[who] = expected(row, who);
         if (r.status() === 307) expect(r.headers().location, `${who} is sent to sign in`).toContain("/sign-in?next=");

@@ -1,4 +1,5 @@
 import { expect, type APIRequestContext, type Page } from "@playwright/test";
+import { E2E_SERVICE_PORTS } from "./ports";
 
 export const DEMO_PASSWORD = "shoal-demo-2026";
 export const DEMO = {
@@ -9,7 +10,7 @@ export const DEMO = {
 } as const;
 export type DemoRole = keyof typeof DEMO;
 
-const MAIL_API = "http://127.0.0.1:4611"; // the e2e server's mail stand-in (scripts/e2e-server.ts)
+const MAIL_API = `http://127.0.0.1:${E2E_SERVICE_PORTS.mail}`; // the e2e server's mail stand-in (scripts/e2e-server.ts)
 
 export function uniqueEmail(tag: string): string {
   return `${tag}.${Date.now()}.${Math.floor(Math.random() * 1e6)}@example.test`;

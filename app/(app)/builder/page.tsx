@@ -22,7 +22,7 @@ export default async function BuilderPage() {
         title="Your service and prices"
         lead="Farmers see your starting prices; quotes add travel from your base at your rate per kilometre."
       />
-      <BuilderProfileForm initial={current} />
+      <BuilderProfileForm providerId={user.id} initial={current} />
     </div>
   );
 }

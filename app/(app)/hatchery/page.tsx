@@ -12,7 +12,7 @@ export default async function HatcheryPage() {
   return (
     <div className="mx-auto max-w-2xl">
       <PageHeading title="Your hatchery" lead="What you produce and whether you deliver. Buyers filter on these." />
-      <HatcheryProfileForm initial={current} />
+      <HatcheryProfileForm providerId={user.id} initial={current} />
     </div>
   );
 }

@@ -8,7 +8,8 @@ import { describedBy, Field, FormError, FormNotice, Input } from "@/components/u
 import { fieldErrorsFromZod } from "@/lib/api/form-errors";
 import { putJson } from "@/lib/api/client";
 import { toMajor, toMinor } from "@/lib/money/money";
-import { builderProfileSchema, TANK_TYPE_LABEL, type BuilderProfileInput } from "@/lib/validations/provider";
+import { TANK_TYPE_LABEL } from "@/lib/catalog";
+import { builderProfileSchema, type BuilderProfileInput } from "@/lib/validations/provider";
 
 type TankType = keyof typeof TANK_TYPE_LABEL;
 const TYPES = Object.keys(TANK_TYPE_LABEL) as TankType[];
@@ -42,7 +43,7 @@ function num(s: string): number {
   return s.trim() === "" ? Number.NaN : Number(s.replace(",", "."));
 }
 
-export function BuilderProfileForm({ initial }: { initial: BuilderProfileInput }) {
+export function BuilderProfileForm({ providerId, initial }: { providerId: string; initial: BuilderProfileInput }) {
   const router = useRouter();
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -78,7 +79,7 @@ export function BuilderProfileForm({ initial }: { initial: BuilderProfileInput }
       return;
     }
     setErrors({});
-    const result = await putJson("/api/v1/builder/profile", parsed.data);
+    const result = await putJson(`/api/v1/providers/${providerId}/builder`, parsed.data);
     setMessage(result.ok ? { ok: true, text: "Saved." } : { ok: false, text: result.message });
     if (result.ok) router.refresh();
   });

@@ -7,9 +7,10 @@ import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { describedBy, Field, FormError, FormNotice, Input } from "@/components/ui/field";
 import { putJson } from "@/lib/api/client";
-import { hatcheryProfileSchema, SPECIES_LABEL, type HatcheryProfileInput } from "@/lib/validations/provider";
+import { SPECIES_LABEL } from "@/lib/catalog";
+import { hatcheryProfileSchema, type HatcheryProfileInput } from "@/lib/validations/provider";
 
-export function HatcheryProfileForm({ initial }: { initial: HatcheryProfileInput }) {
+export function HatcheryProfileForm({ providerId, initial }: { providerId: string; initial: HatcheryProfileInput }) {
   const router = useRouter();
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const { register, handleSubmit, formState, watch } = useForm<HatcheryProfileInput>({ resolver: zodResolver(hatcheryProfileSchema), defaultValues: initial });
@@ -17,7 +18,7 @@ export function HatcheryProfileForm({ initial }: { initial: HatcheryProfileInput
   const delivers = watch("delivers");
 
   const onSubmit = handleSubmit(async (values) => {
-    const result = await putJson("/api/v1/hatchery/profile", values);
+    const result = await putJson(`/api/v1/providers/${providerId}/hatchery`, values);
     setMessage(result.ok ? { ok: true, text: "Saved." } : { ok: false, text: result.message });
     if (result.ok) router.refresh();
   });
