@@ -1,18 +1,28 @@
-import sharp from "sharp";
+import sharp, { type FailOnOptions } from "sharp";
+import { IMAGE_WIDTHS } from "@/lib/storage/image-urls";
 
-/** Widths every served image is re-encoded at; pages pick one through srcset. */
-export const IMAGE_WIDTHS = [160, 320, 640, 1280] as const;
-export type ImageWidth = (typeof IMAGE_WIDTHS)[number];
+// Kept here too so existing imports keep working; the pure definitions live in image-urls.ts for client code.
+export { IMAGE_WIDTHS, variantKey, type ImageWidth } from "@/lib/storage/image-urls";
 
 export type Variant = { width: number; height: number; data: Buffer };
+
+export type EncodeOptions = {
+  /** Refuse to decode more pixels than this (sharp's default is 0x3FFF × 0x3FFF). */
+  limitInputPixels?: number;
+  failOn?: FailOnOptions;
+};
 
 /**
  * Re-encodes an image to WebP at each width no larger than the original.
  * sharp drops all metadata (EXIF, GPS, XMP, ICC) unless asked to keep it, so the
  * output never carries where a photo was taken.
  */
-export async function encodeVariants(input: Buffer, widths: readonly number[] = IMAGE_WIDTHS): Promise<{ width: number; height: number; variants: Variant[] }> {
-  const base = sharp(input, { failOn: "error" }).rotate(); // apply the EXIF orientation before it is dropped
+export async function encodeVariants(
+  input: Buffer,
+  widths: readonly number[] = IMAGE_WIDTHS,
+  options: EncodeOptions = {},
+): Promise<{ width: number; height: number; variants: Variant[] }> {
+  const base = sharp(input, { failOn: options.failOn ?? "error", ...(options.limitInputPixels ? { limitInputPixels: options.limitInputPixels } : {}) }).rotate(); // apply the EXIF orientation before it is dropped
   const meta = await base.metadata();
   const sourceWidth = meta.autoOrient?.width ?? meta.width ?? 0;
   const sourceHeight = meta.autoOrient?.height ?? meta.height ?? 0;
@@ -25,8 +35,4 @@ export async function encodeVariants(input: Buffer, widths: readonly number[] = 
     variants.push({ width: info.width, height: info.height, data });
   }
   return { width: sourceWidth, height: sourceHeight, variants };
-}
-
-export function variantKey(imageId: string, width: number): string {
-  return `images/${imageId}/${width}.webp`;
 }
