@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq, gte, inArray } from "drizzle-orm";
 import { db } from "@/db/client";
 import { batch, builder, builderPrice, hatchery, image, listing, profile, userRole } from "@/db/schema";
-import { type Species, type TankType } from "@/lib/catalog";
+import { TANK_TYPES, type Species, type TankType } from "@/lib/catalog";
 
 export type PublicBatch = {
   id: string;
@@ -85,6 +85,7 @@ export async function getPublicProvider(userId: string, now = new Date()): Promi
         .select({ tankType: builderPrice.tankType, materialsPerSqmMinor: builderPrice.materialsPerSqmMinor, labourPerSqmMinor: builderPrice.labourPerSqmMinor })
         .from(builderPrice)
         .where(eq(builderPrice.builderId, userId));
+      prices.sort((x, y) => TANK_TYPES.indexOf(x.tankType) - TANK_TYPES.indexOf(y.tankType));
       builderPart = { serviceRadiusKm: b.serviceRadiusKm, currency: b.currency, baseFeeMinor: b.baseFeeMinor, travelRatePerKmMinor: b.travelRatePerKmMinor, prices };
     }
   }

@@ -14,6 +14,9 @@ function toggle<T>(list: T[], value: T): T[] {
 export function FinderFilters({ params, update }: { params: FinderParams; update: (next: Partial<FinderParams>) => void }) {
   const [placeText, setPlaceText] = useState(params.place);
   const [message, setMessage] = useState<string | null>(null);
+  // On phones the detailed filters fold away so the results stay in view; wide screens always show them.
+  const [open, setOpen] = useState(false);
+  const active = (params.kind !== "all" ? 1 : 0) + params.tankType.length + params.species.length + (params.verified ? 1 : 0) + (params.readyNow ? 1 : 0);
   const listId = useId();
   const suggestions = findPlaces(placeText);
 
@@ -102,6 +105,16 @@ export function FinderFilters({ params, update }: { params: FinderParams; update
         </div>
       </div>
 
+      <button
+        type="button"
+        aria-expanded={open}
+        aria-controls="more-filters"
+        onClick={() => setOpen((o) => !o)}
+        className="min-h-11 w-full rounded-lg border border-silt-300 bg-white px-3 text-left text-sm font-semibold text-silt-800 lg:hidden"
+      >
+        {open ? "Hide filters" : `Filters${active ? ` (${active} on)` : ""}`}
+      </button>
+      <div id="more-filters" className={`${open ? "block" : "hidden"} space-y-4 lg:block`}>
       <fieldset>
         <legend className="text-sm font-medium text-silt-800">Looking for</legend>
         <div className="mt-1 flex flex-wrap gap-2">
@@ -151,6 +164,7 @@ export function FinderFilters({ params, update }: { params: FinderParams; update
           <input type="checkbox" className="sr-only" checked={params.readyNow} onChange={(e) => update({ readyNow: e.target.checked })} />
           Fingerlings ready now
         </label>
+      </div>
       </div>
     </form>
   );

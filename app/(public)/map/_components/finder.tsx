@@ -46,7 +46,6 @@ export function Finder({ hostedStyleUrl }: { hostedStyleUrl: string | null }) {
   });
 
   const items: NearbyItem[] = useMemo(() => results.data?.pages.flatMap((p) => p.items) ?? [], [results.data]);
-  const total = results.data?.pages[0]?.total ?? 0;
   const mapItems = useMemo(
     () => items.map((i) => ({ id: String(i.listingId), providerId: i.providerId, kind: i.kind, name: i.displayName, lat: i.lat, lng: i.lng, distanceKm: i.distanceKm, verified: i.verified })),
     [items],
@@ -57,7 +56,7 @@ export function Finder({ hostedStyleUrl }: { hostedStyleUrl: string | null }) {
     <div className="mx-auto flex max-w-7xl flex-col lg:h-[calc(100vh-3.75rem)] lg:flex-row">
       <div className="flex flex-col lg:w-[26rem] lg:shrink-0 lg:overflow-y-auto lg:border-r lg:border-silt-200">
         <div className="px-4 pt-5">
-          <h1 className="text-2xl font-semibold text-silt-950">Builders and hatcheries near you</h1>
+          <h1 className="text-xl font-semibold text-silt-950 sm:text-2xl">Builders and hatcheries near you</h1>
         </div>
         <FinderFilters params={params} update={update} />
         <div className="sticky top-0 z-10 flex gap-1 border-b border-silt-200 bg-silt-50 px-4 py-2 lg:hidden" role="tablist" aria-label="Show results as">
@@ -95,7 +94,8 @@ export function Finder({ hostedStyleUrl }: { hostedStyleUrl: string | null }) {
           ) : (
             <>
               <p className="mb-3 text-sm text-silt-600" data-testid="result-count">
-                {total} within {params.radiusKm} km{params.place ? ` of ${params.place}` : ""}, {params.sort === "trust" ? "most trusted first" : "nearest first"}
+                {results.hasNextPage ? `${items.length}+` : items.length} within {params.radiusKm} km{params.place ? ` of ${params.place}` : ""},{" "}
+                {params.sort === "trust" ? "most trusted first" : "nearest first"}
               </p>
               <ul className="space-y-3" data-testid="result-list">
                 {items.map((item) => (
