@@ -2,7 +2,11 @@ import "server-only";
 import { createClient, type Client } from "@libsql/client";
 import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
 import { env } from "@/lib/env";
-import * as schema from "./schema";
+import * as core from "./schema";
+import * as jobs from "./schema-jobs";
+import * as reservations from "./schema-reservations";
+
+const schema = { ...core, ...reservations, ...jobs };
 
 export type Database = LibSQLDatabase<typeof schema>;
 

@@ -169,7 +169,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
         userId,
         serviceRadiusKm: 25 + Math.floor(rand() * 60),
         currency: "ZMW",
-        baseFeeMinor: Math.round((300 + rand() * 500) * 100),
+        baseFeeMinor: Math.round(300 + rand() * 500) * 100,
         travelRatePerKmMinor: Math.round((8 + rand() * 7) * 100),
       });
       const offers: { tankType: TankType; materials: number; labour: number }[] = [

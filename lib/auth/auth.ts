@@ -7,6 +7,7 @@ import { db } from "@/db/client";
 import * as schema from "@/db/schema";
 import { env } from "@/lib/env";
 import { sendMail } from "@/lib/mail/send-mail";
+import { resetPasswordMail, verifyEmailMail } from "@/lib/mail/templates";
 import { signUpServerSchema } from "@/lib/validations/profile";
 
 function localTwin(origin: string): string[] {
@@ -46,7 +47,7 @@ export const auth = betterAuth({
     resetPasswordTokenExpiresIn: 60 * 60,
     revokeSessionsOnPasswordReset: true,
     sendResetPassword: async ({ user, url }) => {
-      deliver("reset-password", () => sendMail({ name: "reset-password", data: { name: user.name, url } }, user.email));
+      deliver("reset-password", () => sendMail(resetPasswordMail({ name: user.name, url }), user.email));
     },
   },
   emailVerification: {
@@ -55,7 +56,7 @@ export const auth = betterAuth({
     autoSignInAfterVerification: true,
     expiresIn: 24 * 60 * 60,
     sendVerificationEmail: async ({ user, url }) => {
-      deliver("verify-email", () => sendMail({ name: "verify-email", data: { name: user.name, url } }, user.email));
+      deliver("verify-email", () => sendMail(verifyEmailMail({ name: user.name, url }), user.email));
     },
   },
   session: {

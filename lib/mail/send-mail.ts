@@ -1,7 +1,7 @@
 import "server-only";
 import { Resend } from "resend";
 import { env } from "@/lib/env";
-import { renderMail, type MailTemplate } from "./templates";
+import type { RenderedMail } from "./layout";
 
 let client: Resend | undefined;
 function resend(): Resend {
@@ -12,13 +12,12 @@ function resend(): Resend {
 
 export type SendMailOptions = { idempotencyKey?: string };
 
-/** Renders a template and sends it; throws when the mail service refuses it. */
-export async function sendMail(template: MailTemplate, to: string, options: SendMailOptions = {}): Promise<string> {
-  const { subject, html, text } = renderMail(template);
+/** Sends a rendered message (see lib/mail/*-templates.ts); throws when the mail service refuses it. */
+export async function sendMail(message: RenderedMail, to: string, options: SendMailOptions = {}): Promise<string> {
   const { data, error } = await resend().emails.send(
-    { from: env.MAIL_FROM, to, subject, html, text, tags: [{ name: "template", value: template.name }] },
+    { from: env.MAIL_FROM, to, subject: message.subject, html: message.html, text: message.text, tags: [{ name: "template", value: message.template }] },
     options.idempotencyKey ? { idempotencyKey: options.idempotencyKey } : undefined,
   );
-  if (error || !data) throw new Error(`mail to ${to} (${template.name}) refused: ${error?.message ?? "no id"}`);
+  if (error || !data) throw new Error(`mail to ${to} (${message.template}) refused: ${error?.message ?? "no id"}`);
   return data.id;
 }
