@@ -1,6 +1,8 @@
 import "server-only";
 import { createClient, type Client } from "@libsql/client";
 import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
+import { mkdirSync } from "node:fs";
+import { dirname, resolve } from "node:path";
 import { env } from "@/lib/env";
 import * as core from "./schema";
 import * as jobs from "./schema-jobs";
@@ -14,6 +16,10 @@ export type Database = LibSQLDatabase<typeof schema>;
 const globalForDb = globalThis as unknown as { shoalDb?: { client: Client; db: Database } };
 
 function open(): { client: Client; db: Database } {
+  if (env.DATABASE_URL.startsWith("file:") && !env.DATABASE_URL.includes(":memory:")) {
+    // A fresh checkout has no data/ folder yet; the build and first start must not fail on it.
+    mkdirSync(dirname(resolve(env.DATABASE_URL.slice("file:".length))), { recursive: true });
+  }
   const client = createClient({
     url: env.DATABASE_URL,
     authToken: env.DATABASE_AUTH_TOKEN,

@@ -19,8 +19,8 @@ type Props = {
 };
 
 function zoomForRadius(radiusKm: number): number {
-  // About two radii across a 400 px wide map: zoom 9 shows ~80 km at the equator's scale.
-  return Math.max(3, Math.min(12, 9.7 - Math.log2(radiusKm / 10)));
+  // The search circle fills about half of a 700 px map (at zoom z a pixel is ~156 km / 2^z at the equator).
+  return Math.max(3, Math.min(12, 10.5 - Math.log2(radiusKm / 10)));
 }
 
 /** The finder's map: our offline basemap, the search circle, and markers that cluster when zoomed out. */
