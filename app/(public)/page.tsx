@@ -31,16 +31,21 @@ export default async function HomePage() {
             Plan a tank, hire a builder whose work you can see, reserve healthy tilapia or catfish, and pay a deposit that is held until the job is delivered.
           </p>
           <div className="mt-6 flex flex-wrap gap-3">
+            <ButtonLink href="/map">Find builders and hatcheries near you</ButtonLink>
             {user ? (
-              <ButtonLink href="/dashboard">Go to my Shoal</ButtonLink>
+              <ButtonLink href="/dashboard" variant="secondary">
+                Go to my Shoal
+              </ButtonLink>
             ) : (
               <>
-                <ButtonLink href="/sign-up">Create a free account</ButtonLink>
-                <ButtonLink href="/sign-in" variant="secondary">
-                  Sign in
+                <ButtonLink href="/sign-up" variant="secondary">
+                  Create a free account
                 </ButtonLink>
               </>
             )}
+            <ButtonLink href="/planner" variant="secondary">
+              Plan a tank
+            </ButtonLink>
             <ButtonLink href="#how-it-works" variant="ghost">
               How it works
             </ButtonLink>

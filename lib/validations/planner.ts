@@ -182,3 +182,18 @@ export const defaultPlanInput: PlanInput = {
   pump: { headM: 5, efficiencyFraction: 0.4, electricityTariffPerKWhMinor: 150 },
   labourCostPerCycleMinor: 150_000,
 };
+
+/** A saved plan: a name for the farmer's list and the planner input (POST and PUT /api/v1/plans). */
+export const PLAN_NAME_MAX_LENGTH = 120;
+export const savePlanSchema = z.object(
+  {
+    name: z
+      .string({ error: "Plan name is required" })
+      .trim()
+      .min(1, "Plan name is required")
+      .max(PLAN_NAME_MAX_LENGTH, `Plan name must be at most ${PLAN_NAME_MAX_LENGTH} characters`),
+    input: planInputSchema,
+  },
+  { error: "The plan must be an object with a name and an input" },
+);
+export type SavePlanInput = z.output<typeof savePlanSchema>;

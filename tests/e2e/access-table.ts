@@ -10,7 +10,7 @@ type Expect = number | Partial<Record<Visitor, number>> & { default: number };
 export type AccessRow = {
   /** The route as in app/ (route groups removed), e.g. /api/v1/me or /dev/outbox/[id]. */
   route: string;
-  method: "GET" | "POST" | "PUT";
+  method: "GET" | "POST" | "PUT" | "DELETE";
   /** The concrete URL requested; {hatcheryId} and {builderId} stand for the demo providers' ids. */
   url: string;
   body?: unknown;
@@ -33,6 +33,9 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/reset-password", method: "GET", url: "/reset-password?token=nope", expect: ALL_200 },
   { route: "/dev/outbox", method: "GET", url: "/dev/outbox", expect: ALL_200 },
   { route: "/dev/outbox/[id]", method: "GET", url: "/dev/outbox/00000000-0000-0000-0000-000000000000", expect: 404 },
+  { route: "/planner", method: "GET", url: "/planner", expect: ALL_200 },
+  // A saved plan is readable by anyone with its link; a link to no plan is 404 for everyone.
+  { route: "/plans/[id]", method: "GET", url: "/plans/00000000-0000-4000-8000-000000000000", expect: 404 },
   // Signed-in pages
   { route: "/dashboard", method: "GET", url: "/dashboard", expect: SIGNED_IN_PAGE },
   { route: "/onboarding", method: "GET", url: "/onboarding", expect: SIGNED_IN_PAGE },
@@ -51,6 +54,14 @@ export const ACCESS_TABLE: AccessRow[] = [
   // Owner (or admin) only; an empty body then gets 400 with the fields named, so nothing changes.
   { route: "/api/v1/providers/[id]/hatchery", method: "PUT", url: "/api/v1/providers/{hatcheryId}/hatchery", body: {}, expect: { default: 403, signedOut: 401, hatchery: 400, admin: 400 } },
   { route: "/api/v1/providers/[id]/builder", method: "PUT", url: "/api/v1/providers/{builderId}/builder", body: {}, expect: { default: 403, signedOut: 401, builder: 400, admin: 400 } },
+  // The planner API. Estimating is open to all; an empty body is a 400 naming the field, never a 500.
+  { route: "/api/plans/estimate", method: "POST", url: "/api/plans/estimate", body: {}, expect: 400 },
+  { route: "/api/v1/plans", method: "GET", url: "/api/v1/plans", expect: roleOnlyApi("farmer") },
+  { route: "/api/v1/plans", method: "POST", url: "/api/v1/plans", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/plans/[id]", method: "GET", url: "/api/v1/plans/00000000-0000-4000-8000-000000000000", expect: 404 },
+  // Changing a plan needs a farmer (PUT) or any account (DELETE), then ownership: a missing plan is 404.
+  { route: "/api/v1/plans/[id]", method: "PUT", url: "/api/v1/plans/00000000-0000-4000-8000-000000000000", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/plans/[id]", method: "DELETE", url: "/api/v1/plans/00000000-0000-4000-8000-000000000000", expect: { default: 404, signedOut: 401 } },
   {
     route: "/api/v1/admin/providers/[id]/verification",
     method: "POST",
