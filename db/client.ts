@@ -4,11 +4,7 @@ import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
 import { mkdirSync } from "node:fs";
 import { dirname, resolve } from "node:path";
 import { env } from "@/lib/env";
-import * as core from "./schema";
-import * as jobs from "./schema-jobs";
-import * as reservations from "./schema-reservations";
-
-const schema = { ...core, ...reservations, ...jobs };
+import { allSchema as schema } from "./all-schema";
 
 export type Database = LibSQLDatabase<typeof schema>;
 

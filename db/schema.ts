@@ -178,9 +178,11 @@ export const image = sqliteTable(
     width: integer("width").notNull(),
     height: integer("height").notNull(),
     alt: text("alt").notNull().default(""),
+    // The object the image belongs to (tank request, portfolio item, job…), read together with `kind`.
+    subjectId: text("subject_id"),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("image_key_prefix_idx").on(t.keyPrefix), index("image_owner_idx").on(t.ownerId)],
+  (t) => [uniqueIndex("image_key_prefix_idx").on(t.keyPrefix), index("image_owner_idx").on(t.ownerId), index("image_kind_subject_idx").on(t.kind, t.subjectId)],
 );
 
 export const userRelations = relations(user, ({ one, many }) => ({

@@ -11,6 +11,7 @@ import { refreshListings } from "../lib/listings/sync";
 import { encodeVariants, variantKey } from "../lib/storage/variants";
 import { loadDotEnv } from "../scripts/load-env";
 import type { Role, Species, TankType, VerificationState } from "../lib/catalog";
+import { allSchema } from "./all-schema";
 import * as schema from "./schema";
 import { BUILDER_NAMES, FIRST_NAMES, HATCHERY_NAMES, SURNAMES, TOWNS, type Town } from "./seed-data";
 
@@ -78,7 +79,7 @@ type SeedOptions = { url: string; authToken?: string; onlyIfEmpty?: boolean };
 /** Seeds the demo scenario. Returns a summary, or null when the database already had users and onlyIfEmpty is set. */
 export async function seedDemo(options: SeedOptions): Promise<string | null> {
   const client = createClient({ url: options.url, authToken: options.authToken, timeout: 5000 });
-  const db = drizzle(client, { schema });
+  const db = drizzle(client, { schema: allSchema });
   try {
     if (options.onlyIfEmpty) {
       const existing = await db.select({ id: schema.user.id }).from(schema.user).limit(1);

@@ -1,4 +1,5 @@
-import { DEFAULT_WATER_CHANGE, TANK_TYPES, type PlanInput, type TankType } from "@/lib/validations/planner";
+import { DEFAULT_WATER_CHANGE, TANK_TYPES, type TankType } from "./choices";
+import type { PlanInput } from "@/lib/validations/planner";
 import { planAssumptions } from "./assumptions";
 import { planCautions } from "./cautions";
 import { amortisationPerCycleMinor, breakEvenPricePerKgMinor, costBreakdown, DEFAULT_TANK_LIFE_YEARS, priceOf, resolveBuildCost } from "./costs";

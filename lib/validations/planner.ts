@@ -7,17 +7,12 @@ import { feetToMetres } from "@/lib/planner/units";
  * The browser form and POST /api/plans/estimate parse with this one schema; lib/planner/estimate.ts computes from it.
  */
 
-export const TANK_TYPES = ["tarpaulin", "concrete", "earthen"] as const;
-export const TANK_SHAPES = ["rectangular", "round"] as const;
-export const SPECIES_CHOICES = ["tilapia", "catfish", "both"] as const;
-export const LINER_COLOURS = ["blue", "white", "black", "other"] as const;
-export const SUN_EXPOSURES = ["full-sun", "part-shade", "shade"] as const;
+import { DEFAULT_WATER_CHANGE, LINER_COLOURS, SPECIES_CHOICES, SUN_EXPOSURES, TANK_SHAPES, TANK_TYPES } from "@/lib/planner/choices";
+import type { TankType } from "@/lib/planner/choices";
 
-export type TankType = (typeof TANK_TYPES)[number];
-export type TankShape = (typeof TANK_SHAPES)[number];
-export type SpeciesChoice = (typeof SPECIES_CHOICES)[number];
-export type LinerColour = (typeof LINER_COLOURS)[number];
-export type SunExposure = (typeof SUN_EXPOSURES)[number];
+// Kept here too for the form and the API, which import their vocabulary with the schema.
+export { DEFAULT_WATER_CHANGE, LINER_COLOURS, SPECIES_CHOICES, SUN_EXPOSURES, TANK_SHAPES, TANK_TYPES };
+export type { LinerColour, SpeciesChoice, SunExposure, TankShape, TankType } from "@/lib/planner/choices";
 
 const numberFormat = new Intl.NumberFormat("en", { maximumFractionDigits: 6 });
 
@@ -141,15 +136,6 @@ export type TankDimensions = PlanInput["tank"]["dimensions"];
 export type SpeciesStock = PlanInput["tilapia"];
 export type WaterChangeSchedule = PlanInput["waterChange"];
 
-/**
- * Default water-change schedule by tank type (common practice): a tank with no soil gets a full change every week;
- * an earthen pond is only topped up and partly exchanged, here a tenth of its water a week.
- */
-export const DEFAULT_WATER_CHANGE: Readonly<Record<TankType, WaterChangeSchedule>> = {
-  tarpaulin: { intervalDays: 7, fractionExchanged: 1 },
-  concrete: { intervalDays: 7, fractionExchanged: 1 },
-  earthen: { intervalDays: 7, fractionExchanged: 0.1 },
-};
 
 /**
  * The plan the page opens with: a 6 ft × 10 ft tarpaulin tank (a common small size) of Nile tilapia.

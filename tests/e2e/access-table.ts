@@ -26,6 +26,8 @@ export const ACCESS_TABLE: AccessRow[] = [
   // Public pages
   { route: "/", method: "GET", url: "/", expect: ALL_200 },
   { route: "/safety", method: "GET", url: "/safety", expect: ALL_200 },
+  { route: "/map", method: "GET", url: "/map?lat=-15.4&lng=28.3&radiusKm=50", expect: ALL_200 },
+  { route: "/providers/[id]", method: "GET", url: "/providers/{hatcheryId}", expect: ALL_200 },
   { route: "/sign-in", method: "GET", url: "/sign-in", expect: ALL_200 },
   { route: "/sign-up", method: "GET", url: "/sign-up", expect: ALL_200 },
   { route: "/check-email", method: "GET", url: "/check-email?email=a%40b.test", expect: ALL_200 },

@@ -5,7 +5,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, FormError, FormNotice, Input } from "@/components/ui/field";
-import { authClient } from "@/lib/auth/auth-client";
+import { authApi } from "@/lib/auth/auth-api";
 import { forgotPasswordSchema } from "@/lib/validations/profile";
 
 type Values = z.input<typeof forgotPasswordSchema>;
@@ -18,7 +18,7 @@ export function ForgotPasswordForm() {
 
   const onSubmit = handleSubmit(async ({ email }) => {
     setFormError(null);
-    const { error } = await authClient.requestPasswordReset({ email: email.trim(), redirectTo: "/reset-password" });
+    const { error } = await authApi.requestPasswordReset({ email: email.trim(), redirectTo: "/reset-password" });
     if (error) {
       setFormError(error.status === 429 ? "Too many requests. Wait a minute and try again." : "We could not send the link. Try again.");
       return;

@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, FormError, Input } from "@/components/ui/field";
-import { authClient } from "@/lib/auth/auth-client";
+import { authApi } from "@/lib/auth/auth-api";
 import { resetPasswordSchema } from "@/lib/validations/profile";
 
 type Values = z.input<typeof resetPasswordSchema>;
@@ -19,7 +19,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
   const onSubmit = handleSubmit(async ({ password }) => {
     setFormError(null);
-    const { error } = await authClient.resetPassword({ newPassword: password, token });
+    const { error } = await authApi.resetPassword({ newPassword: password, token });
     if (error) {
       setFormError(error.code === "INVALID_TOKEN" ? "This link is not valid any more. Ask for a new one." : (error.message ?? "Could not change the password."));
       return;

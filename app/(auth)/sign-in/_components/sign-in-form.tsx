@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, FormError, Input } from "@/components/ui/field";
-import { authClient } from "@/lib/auth/auth-client";
+import { authApi } from "@/lib/auth/auth-api";
 import { signInSchema } from "@/lib/validations/profile";
 
 type Values = z.input<typeof signInSchema>;
@@ -19,7 +19,7 @@ export function SignInForm({ next }: { next: string }) {
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
-    const { error } = await authClient.signIn.email({ email: values.email.trim(), password: values.password, callbackURL: next });
+    const { error } = await authApi.signIn({ email: values.email.trim(), password: values.password, callbackURL: next });
     if (error) {
       if (error.code === "EMAIL_NOT_VERIFIED") setFormError("Confirm your e-mail first. We have sent you a new confirmation link.");
       else if (error.status === 429) setFormError("Too many attempts. Wait a minute and try again.");

@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { describedBy, Field, FormError, Input } from "@/components/ui/field";
-import { authClient } from "@/lib/auth/auth-client";
+import { authApi } from "@/lib/auth/auth-api";
 import { signUpSchema } from "@/lib/validations/profile";
 
 type Values = z.input<typeof signUpSchema>;
@@ -19,7 +19,7 @@ export function SignUpForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
-    const { error } = await authClient.signUp.email({
+    const { error } = await authApi.signUp({
       name: values.name.trim(),
       email: values.email.trim(),
       password: values.password,
