@@ -75,6 +75,7 @@ test.describe("account life cycle", () => {
 
     await page.goto("/sign-in");
     await page.getByRole("link", { name: "Forgot your password?" }).click();
+    await expect(page.getByRole("heading", { name: "Forgot your password?" })).toBeVisible();
     await page.getByLabel("E-mail").fill(email);
     await page.getByRole("button", { name: "Send the link" }).click();
     await expect(page.getByRole("status")).toContainText("is on its way");

@@ -34,7 +34,11 @@ test.describe("find nearby @phone", () => {
     await page.screenshot({ path: `test-results/screens/map-${info.project.name}.png` });
 
     // Filter: builders of concrete tanks only. The URL holds the filters.
-    if (phone) await page.getByRole("tab", { name: "List" }).click();
+    if (phone) {
+      await page.getByRole("tab", { name: "List" }).click();
+      // On phones the detailed filters fold away behind one button.
+      await page.getByRole("button", { name: /^Filters/ }).click();
+    }
     await page.getByText("Tank builders", { exact: true }).click();
     await page.getByText("Concrete", { exact: true }).click();
     await expect(page).toHaveURL(/kind=builder/);
