@@ -1,6 +1,8 @@
 import autocannon from "autocannon";
 import { spawn, type ChildProcess } from "node:child_process";
 import { existsSync, rmSync } from "node:fs";
+import { createServer } from "node:net";
+import { cpus, loadavg } from "node:os";
 import { migrateDatabase } from "../../db/migrate";
 import { PLACES } from "../../lib/places/gazetteer";
 import { seedBenchListings } from "./seed-bench";
@@ -14,6 +16,14 @@ const BASE = `http://127.0.0.1:${PORT}`;
 const DIR = "data/bench";
 const DB_URL = `file:./${DIR}/shoal.db`;
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+
+/** Refuses to measure a server left over from another run. */
+async function assertPortFree(port: number): Promise<void> {
+  await new Promise<void>((resolve, reject) => {
+    const probe = createServer().once("error", () => reject(new Error(`port ${port} is in use: stop the old server first`)));
+    probe.listen(port, "127.0.0.1", () => probe.close(() => resolve()));
+  });
+}
 
 async function waitFor(url: string, timeoutMs: number): Promise<void> {
   const end = Date.now() + timeoutMs;
@@ -83,6 +93,7 @@ export async function benchNearby(): Promise<void> {
     await seedBenchListings(DB_URL, LISTINGS);
     console.log(`seeded ${LISTINGS.toLocaleString("en")} listings in ${((Date.now() - t) / 1000).toFixed(1)} s`);
   }
+  await assertPortFree(PORT);
   const server: ChildProcess = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(PORT), "-H", "127.0.0.1"], {
     env: { ...process.env, DATABASE_URL: DB_URL, SHOAL_BENCH: "true", APP_URL: BASE, NEXT_TELEMETRY_DISABLED: "1" },
     stdio: ["ignore", "ignore", "inherit"],
@@ -95,7 +106,8 @@ export async function benchNearby(): Promise<void> {
       rows.push(await load("index", radiusKm));
       rows.push(await load("scan", radiusKm));
     }
-    console.log(`\nNearby search, ${LISTINGS.toLocaleString("en")} listings, 32 connections, ${SECONDS} s per index run (budget: p95 ≤ 25 ms and ≥ 20× the full scan)`);
+    console.log(`\nLoad average before the run (1, 5, 15 min): ${loadavg().map((l) => l.toFixed(2)).join(", ")} on ${cpus().length} cores`);
+    console.log(`Nearby search, ${LISTINGS.toLocaleString("en")} listings, 32 connections, ${SECONDS} s per index run (budget: p95 ≤ 25 ms and ≥ 20× the full scan)`);
     console.log("radius  strategy  in area  req/s    p50 ms  p95 ms  p99 ms  errors  non-2xx  speed-up  budget");
     for (const radiusKm of [10, 50, 200]) {
       const idx = rows.find((r) => r.radiusKm === radiusKm && r.strategy === "index");
@@ -110,6 +122,10 @@ export async function benchNearby(): Promise<void> {
       }
     }
   } finally {
-    if (server.pid) process.kill(-server.pid, "SIGTERM");
+    try {
+      if (server.pid) process.kill(-server.pid, "SIGTERM");
+    } catch {
+      // already gone
+    }
   }
 }

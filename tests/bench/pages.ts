@@ -128,7 +128,11 @@ export async function benchPages(pages: { name: string; url: string; map?: boole
     }
   } finally {
     await browser.close();
-    if (server.pid) process.kill(-server.pid, "SIGTERM");
+    try {
+      if (server.pid) process.kill(-server.pid, "SIGTERM");
+    } catch {
+      // already gone
+    }
     await services.close();
   }
 }
