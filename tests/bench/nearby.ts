@@ -86,6 +86,7 @@ async function load(strategy: "index" | "scan", radiusKm: number): Promise<Row> 
 }
 
 export async function benchNearby(): Promise<void> {
+  const loadBefore = loadavg();
   if (!existsSync(`${DIR}/shoal.db`) || process.env.BENCH_RESEED === "1") {
     rmSync(DIR, { recursive: true, force: true });
     await migrateDatabase(DB_URL);
@@ -106,7 +107,7 @@ export async function benchNearby(): Promise<void> {
       rows.push(await load("index", radiusKm));
       rows.push(await load("scan", radiusKm));
     }
-    console.log(`\nLoad average before the run (1, 5, 15 min): ${loadavg().map((l) => l.toFixed(2)).join(", ")} on ${cpus().length} cores`);
+    console.log(`\nLoad average before the run (1, 5, 15 min): ${loadBefore.map((l) => l.toFixed(2)).join(", ")} on ${cpus().length} cores`);
     console.log(`Nearby search, ${LISTINGS.toLocaleString("en")} listings, 32 connections, ${SECONDS} s per index run (budget: p95 ≤ 25 ms and ≥ 20× the full scan)`);
     console.log("radius  strategy  in area  req/s    p50 ms  p95 ms  p99 ms  errors  non-2xx  speed-up  budget");
     for (const radiusKm of [10, 50, 200]) {
