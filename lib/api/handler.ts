@@ -1,7 +1,31 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { DomainError, Invalid } from "@/lib/errors";
+import { env } from "@/lib/env";
+import { DomainError, Forbidden, Invalid } from "@/lib/errors";
+
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+function ownOrigins(): Set<string> {
+  const u = new URL(env.APP_URL);
+  const twin = u.hostname === "localhost" ? "127.0.0.1" : u.hostname === "127.0.0.1" ? "localhost" : null;
+  return new Set([u.origin, ...(twin ? [`${u.protocol}//${twin}${u.port ? `:${u.port}` : ""}`] : [])]);
+}
+const OWN_ORIGINS = ownOrigins();
+
+/**
+ * Browsers send Origin with every cross-site POST/PUT/DELETE; one from another site is a
+ * forged request (CSRF) and is refused before anything runs. Requests without Origin come
+ * from non-browser clients, which cannot carry a victim's cookies for us.
+ */
+export function assertSameOrigin(request: Request): void {
+  if (SAFE_METHODS.has(request.method)) return;
+  const origin = request.headers.get("origin");
+  const site = request.headers.get("sec-fetch-site");
+  if ((origin && origin !== "null" && !OWN_ORIGINS.has(origin)) || origin === "null" || site === "cross-site") {
+    throw new Forbidden("Requests from other sites are not accepted");
+  }
+}
 
 export type ApiErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string[]> } };
 
@@ -18,6 +42,7 @@ type Handler<C> = (request: Request, context: C) => Promise<Response>;
 export function withApi<C>(handler: Handler<C>): Handler<C> {
   return async (request, context) => {
     try {
+      assertSameOrigin(request);
       return await handler(request, context);
     } catch (error) {
       if (error instanceof DomainError) return errorResponse(error);
