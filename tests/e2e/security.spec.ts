@@ -9,7 +9,8 @@ test("a forged cross-site request is refused and changes nothing", async () => {
   const before = await (await ctx.get(`/api/v1/providers/${me.user.id}`)).json();
 
   // The signed-in hatchery's cookies ride along, as they would from a hostile page in the same browser.
-  for (const headers of [{ origin: "https://evil.example" }, { origin: "null" }, { origin: E2E_BASE_URL, "sec-fetch-site": "cross-site" }]) {
+  const forged: Record<string, string>[] = [{ origin: "https://evil.example" }, { origin: "null" }, { origin: E2E_BASE_URL, "sec-fetch-site": "cross-site" }];
+  for (const headers of forged) {
     const r = await ctx.put(`/api/v1/providers/${me.user.id}/hatchery`, { headers, data: { species: ["catfish"], delivers: true, deliveryRadiusKm: 5 } });
     expect(r.status(), JSON.stringify(headers)).toBe(403);
     expect(((await r.json()) as { error: { message: string } }).error.message).toContain("other sites");
