@@ -28,6 +28,8 @@ const envSchema = z.object({
   STRIPE_SECRET_KEY: z.string().min(1).default("sk_test_local_shoal"),
   STRIPE_API_BASE: z.url().default("http://127.0.0.1:4620"),
   STRIPE_WEBHOOK_SECRET: z.string().min(1).default("whsec_local_shoal"),
+  // Shared secret of the scheduled sweep (POST /api/cron/sweep with "Authorization: Bearer <secret>").
+  CRON_SECRET: z.string().min(16, "CRON_SECRET must be at least 16 characters").default("cron_local_shoal_sweep"),
   MAP_STYLE_URL: z.url().optional(),
   // Enables the full-scan search strategy that the benchmark compares against. Never in production.
   SHOAL_BENCH: boolish.default(false),

@@ -23,7 +23,8 @@ export interface ReservationParameters {
 // 7 days for most online card payments (5 for some Visa merchant-initiated ones). A reservation's money is held
 // from payment through hand-over and up to autoReleaseDays after it, which can be longer. The hold machine records
 // a lapse (hold-state.ts "expire"), but the wiring must decide how to keep the money safe past 7 days
-// (capture into Shoal's holding earlier, or authorise nearer hand-over). That is not decided here.
+// (capture into Shoal's holding earlier, or authorise nearer hand-over). That is not decided here: see
+// lib/payments/holds.ts (SAFEKEEP_AFTER_HOURS), which authorises first and captures into Shoal's holding at day 5.
 export const RESERVATION_PARAMETERS: ReservationParameters = {
   acceptWithinHours: {
     value: 48,
