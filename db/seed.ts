@@ -12,7 +12,9 @@ import { encodeVariants, variantKey } from "../lib/storage/variants";
 import { loadDotEnv } from "../scripts/load-env";
 import type { Role, Species, TankType, VerificationState } from "../lib/catalog";
 import { allSchema } from "./all-schema";
+import { seedJobs } from "./seed-jobs";
 import * as schema from "./schema";
+import { seedReservations } from "./seed-reservations";
 import { BUILDER_NAMES, FIRST_NAMES, HATCHERY_NAMES, SURNAMES, TOWNS, type Town } from "./seed-data";
 
 export const DEMO_PASSWORD = "shoal-demo-2026";
@@ -212,6 +214,9 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
     // The search reads listings; build them from what was just seeded.
     const providers = await db.selectDistinct({ id: schema.userRole.userId }).from(schema.userRole).where(inArray(schema.userRole.role, ["hatchery", "builder"]));
     for (const p of providers) await refreshListings(db, p.id);
+    console.log(await seedJobs({ db, s3, bucket, demo: DEMO_ACCOUNTS }));
+
+    const reservationsSummary = await seedReservations(client, { farmerEmail: DEMO_ACCOUNTS.farmer, hatcheryEmail: DEMO_ACCOUNTS.hatchery });
 
     const byRole = await db
       .select({ role: schema.userRole.role, n: sql<number>`count(*)` })
@@ -221,6 +226,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
     const count = (role: Role) => Number(byRole.find((r) => r.role === role)?.n ?? 0);
     return [
       `seeded ${Number(users[0]?.n ?? 0)} demo accounts: ${count("hatchery")} hatcheries, ${count("builder")} builders, ${count("farmer")} farmers, ${count("admin")} admin (one account can hold several roles)`,
+      reservationsSummary,
       `password for every demo account: ${DEMO_PASSWORD}`,
       ...Object.entries(DEMO_ACCOUNTS).map(([role, email]) => `  ${role.padEnd(16)} ${email}`),
     ].join("\n");

@@ -3,12 +3,20 @@ export type ApiResult<T> =
   | { ok: true; data: T }
   | { ok: false; status: number; message: string; fieldErrors?: Record<string, string[]> };
 
-async function send<T>(method: string, url: string, body?: unknown): Promise<ApiResult<T>> {
+export type SendOptions = {
+  /** for calls that take stock or move money: the same key when the same request is retried (lib/api/idempotency.ts) */
+  idempotencyKey?: string;
+};
+
+async function send<T>(method: string, url: string, body?: unknown, options: SendOptions = {}): Promise<ApiResult<T>> {
   let response: Response;
   try {
+    const headers: Record<string, string> = {};
+    if (body !== undefined) headers["content-type"] = "application/json";
+    if (options.idempotencyKey) headers["idempotency-key"] = options.idempotencyKey;
     response = await fetch(url, {
       method,
-      headers: body === undefined ? undefined : { "content-type": "application/json" },
+      headers,
       body: body === undefined ? undefined : JSON.stringify(body),
     });
   } catch {
@@ -26,5 +34,6 @@ async function send<T>(method: string, url: string, body?: unknown): Promise<Api
 }
 
 export const getJson = <T,>(url: string) => send<T>("GET", url);
-export const postJson = <T = unknown,>(url: string, body: unknown) => send<T>("POST", url, body);
+export const postJson = <T = unknown,>(url: string, body: unknown, options?: SendOptions) => send<T>("POST", url, body, options);
 export const putJson = <T = unknown,>(url: string, body: unknown) => send<T>("PUT", url, body);
+export const deleteJson = <T = unknown,>(url: string) => send<T>("DELETE", url);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { ROLES, type Role } from "@/lib/catalog";
-import { PERMISSIONS, can, canEditProfile, decide, isProvider, type Permission } from "./permissions";
+import { PERMISSIONS, can, canEditProfile, canManageBatch, decide, isProvider, reservationRoleOf, type Permission } from "./permissions";
 
 const actor = (roles: Role[], id = "u1") => ({ id, roles });
 
@@ -36,5 +36,32 @@ describe("permission table", () => {
   it("knows providers", () => {
     expect(isProvider(["farmer"])).toBe(false);
     expect(isProvider(["farmer", "builder"])).toBe(true);
+  });
+});
+
+// Issue 4 and DESIGN.md's role table: a hatchery manages its own batches and answers its reservations; a farmer
+// follows their own; an admin settles disputes; nobody else sees a reservation.
+describe("batches and reservations", () => {
+  it("lets a hatchery manage only its own batches", () => {
+    expect(canManageBatch(actor(["hatchery"], "h1"), { hatcheryId: "h1" })).toBe(true);
+    expect(canManageBatch(actor(["hatchery"], "h2"), { hatcheryId: "h1" })).toBe(false);
+    expect(canManageBatch(actor(["farmer"], "h1"), { hatcheryId: "h1" })).toBe(false);
+    expect(canManageBatch(actor(["admin"], "a"), { hatcheryId: "h1" })).toBe(false);
+    expect(canManageBatch(null, { hatcheryId: "h1" })).toBe(false);
+  });
+
+  it("knows each party's part in a reservation, and nobody else's", () => {
+    const r = { farmerId: "f", hatcheryId: "h" };
+    expect(reservationRoleOf(actor(["farmer"], "f"), r)).toBe("farmer");
+    expect(reservationRoleOf(actor(["hatchery"], "h"), r)).toBe("hatchery");
+    expect(reservationRoleOf(actor(["admin"], "a"), r)).toBe("admin");
+    expect(reservationRoleOf(actor(["farmer"], "other"), r)).toBeNull();
+    expect(reservationRoleOf(actor(["builder"], "b"), r)).toBeNull();
+    // The party's role is the one that counts: the farmer id without the farmer role is nobody.
+    expect(reservationRoleOf(actor(["builder"], "f"), r)).toBeNull();
+    // An admin who is also the farmer acts as the farmer, except for admin-only moves.
+    expect(reservationRoleOf(actor(["farmer", "admin"], "f"), r)).toBe("farmer");
+    expect(reservationRoleOf(actor(["farmer", "admin"], "f"), r, true)).toBe("admin");
+    expect(reservationRoleOf(null, r)).toBeNull();
   });
 });

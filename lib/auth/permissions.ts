@@ -11,7 +11,18 @@ export const PERMISSIONS = {
   "builder:manage": ["builder"],
   "plan:save": ["farmer"],
   "tank-request:post": ["farmer"],
+  // Tank requests, quotes, jobs and portfolios (issue 5). Each service also checks that the caller is a party.
+  "tank-request:quote": ["builder"],
+  "job:take-part": ["farmer", "builder", "admin"],
+  "portfolio:manage": ["builder"],
+  "upload:image": ["farmer", "hatchery", "builder", "admin"],
   "reservation:create": ["farmer"],
+  "reservation:pay": ["farmer"],
+  // Reading one's own reservations and moving them along; ownership is checked again per reservation.
+  "reservation:view": ["farmer", "hatchery", "admin"],
+  "reservation:respond": ["hatchery"],
+  "reservation:export": ["hatchery"],
+  "batch:manage": ["hatchery"],
   "review:write": ["farmer"],
   "admin:verify-providers": ["admin"],
   "admin:resolve-disputes": ["admin"],
@@ -46,4 +57,22 @@ export type SelfServiceRole = (typeof SELF_SERVICE_ROLES)[number];
 
 export function isProvider(roles: readonly Role[]): boolean {
   return roles.includes("hatchery") || roles.includes("builder");
+}
+
+/** A hatchery manages its own batches only. */
+export function canManageBatch(actor: Actor, batch: { hatcheryId: string }): boolean {
+  return Boolean(actor && actor.roles.includes("hatchery") && actor.id === batch.hatcheryId);
+}
+
+/**
+ * The part the actor plays in a reservation: its farmer, its hatchery, or an admin who is neither; null for
+ * everyone else. `preferAdmin` is for admin-only moves (settling a dispute) by an admin who is also a party.
+ */
+export function reservationRoleOf(actor: Actor, reservation: { farmerId: string; hatcheryId: string }, preferAdmin = false): "farmer" | "hatchery" | "admin" | null {
+  if (!actor) return null;
+  if (preferAdmin && actor.roles.includes("admin")) return "admin";
+  if (actor.id === reservation.farmerId && actor.roles.includes("farmer")) return "farmer";
+  if (actor.id === reservation.hatcheryId && actor.roles.includes("hatchery")) return "hatchery";
+  if (actor.roles.includes("admin")) return "admin";
+  return null;
 }

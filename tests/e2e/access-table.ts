@@ -21,6 +21,7 @@ const ALL_200 = 200;
 const SIGNED_IN_PAGE = { default: 200, signedOut: 307 };
 const roleOnlyPage = (who: Visitor) => ({ default: 403, signedOut: 307, [who]: 200 });
 const roleOnlyApi = (who: Visitor, ok = 200) => ({ default: 403, signedOut: 401, [who]: ok });
+const NO_ID = "00000000-0000-4000-8000-000000000000";
 
 export const ACCESS_TABLE: AccessRow[] = [
   // Public pages
@@ -44,6 +45,14 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/admin", method: "GET", url: "/admin", expect: roleOnlyPage("admin") },
   { route: "/hatchery", method: "GET", url: "/hatchery", expect: roleOnlyPage("hatchery") },
   { route: "/builder", method: "GET", url: "/builder", expect: roleOnlyPage("builder") },
+  { route: "/farmer/requests", method: "GET", url: "/farmer/requests", expect: roleOnlyPage("farmer") },
+  { route: "/farmer/requests/new", method: "GET", url: "/farmer/requests/new", expect: roleOnlyPage("farmer") },
+  { route: "/farmer/requests/[id]", method: "GET", url: "/farmer/requests/00000000-0000-4000-8000-000000000000", expect: { default: 403, signedOut: 307, farmer: 404 } },
+  { route: "/builder/requests", method: "GET", url: "/builder/requests", expect: roleOnlyPage("builder") },
+  { route: "/builder/requests/[id]", method: "GET", url: "/builder/requests/00000000-0000-4000-8000-000000000000", expect: { default: 403, signedOut: 307, builder: 404 } },
+  { route: "/builder/jobs", method: "GET", url: "/builder/jobs", expect: roleOnlyPage("builder") },
+  { route: "/builder/jobs/[id]", method: "GET", url: "/builder/jobs/00000000-0000-4000-8000-000000000000", expect: { default: 403, signedOut: 307, builder: 404 } },
+  { route: "/builder/portfolio", method: "GET", url: "/builder/portfolio", expect: roleOnlyPage("builder") },
   // Route handlers
   { route: "/api/health", method: "GET", url: "/api/health", expect: ALL_200 },
   { route: "/api/auth/[...all]", method: "GET", url: "/api/auth/get-session", expect: ALL_200 },
@@ -64,6 +73,26 @@ export const ACCESS_TABLE: AccessRow[] = [
   // Changing a plan needs a farmer (PUT) or any account (DELETE), then ownership: a missing plan is 404.
   { route: "/api/v1/plans/[id]", method: "PUT", url: "/api/v1/plans/00000000-0000-4000-8000-000000000000", body: {}, expect: roleOnlyApi("farmer", 400) },
   { route: "/api/v1/plans/[id]", method: "DELETE", url: "/api/v1/plans/00000000-0000-4000-8000-000000000000", expect: { default: 404, signedOut: 401 } },
+  // Tank requests, quotes, jobs and portfolios (issue 5). Ids that name nothing: the party gets 404, others their role's 403.
+  { route: "/api/v1/tank-requests", method: "GET", url: "/api/v1/tank-requests", expect: roleOnlyApi("farmer") },
+  { route: "/api/v1/tank-requests", method: "POST", url: "/api/v1/tank-requests", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/tank-requests/nearby", method: "GET", url: "/api/v1/tank-requests/nearby", expect: roleOnlyApi("builder") },
+  // Readable by its farmer and by builders within reach; a missing one is 404 for every signed-in account.
+  { route: "/api/v1/tank-requests/[id]", method: "GET", url: "/api/v1/tank-requests/00000000-0000-4000-8000-000000000000", expect: { default: 404, signedOut: 401 } },
+  { route: "/api/v1/tank-requests/[id]/close", method: "POST", url: "/api/v1/tank-requests/00000000-0000-4000-8000-000000000000/close", body: {}, expect: roleOnlyApi("farmer", 404) },
+  { route: "/api/v1/tank-requests/[id]/quotes", method: "POST", url: "/api/v1/tank-requests/00000000-0000-4000-8000-000000000000/quotes", body: {}, expect: roleOnlyApi("builder", 400) },
+  { route: "/api/v1/quotes/[id]", method: "PUT", url: "/api/v1/quotes/00000000-0000-4000-8000-000000000000", body: {}, expect: roleOnlyApi("builder", 400) },
+  { route: "/api/v1/quotes/[id]/withdraw", method: "POST", url: "/api/v1/quotes/00000000-0000-4000-8000-000000000000/withdraw", body: {}, expect: roleOnlyApi("builder", 404) },
+  { route: "/api/v1/quotes/[id]/accept", method: "POST", url: "/api/v1/quotes/00000000-0000-4000-8000-000000000000/accept", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/jobs/[id]", method: "GET", url: "/api/v1/jobs/00000000-0000-4000-8000-000000000000", expect: { default: 404, signedOut: 401, hatchery: 403 } },
+  { route: "/api/v1/jobs/[id]/deposit", method: "POST", url: "/api/v1/jobs/00000000-0000-4000-8000-000000000000/deposit", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/jobs/[id]/events", method: "POST", url: "/api/v1/jobs/00000000-0000-4000-8000-000000000000/events", body: {}, expect: { default: 400, signedOut: 401, hatchery: 403 } },
+  { route: "/api/v1/portfolio", method: "GET", url: "/api/v1/portfolio?builderId={builderId}", expect: ALL_200 },
+  { route: "/api/v1/portfolio", method: "POST", url: "/api/v1/portfolio", body: {}, expect: roleOnlyApi("builder", 400) },
+  { route: "/api/v1/portfolio/[id]", method: "DELETE", url: "/api/v1/portfolio/00000000-0000-4000-8000-000000000000", expect: roleOnlyApi("builder", 404) },
+  // Every role may upload something; an empty body is a 400 naming the field before any object is looked at.
+  { route: "/api/v1/uploads/presign", method: "POST", url: "/api/v1/uploads/presign", body: {}, expect: { default: 400, signedOut: 401 } },
+  { route: "/api/v1/uploads/complete", method: "POST", url: "/api/v1/uploads/complete", body: {}, expect: { default: 400, signedOut: 401 } },
   {
     route: "/api/v1/admin/providers/[id]/verification",
     method: "POST",
@@ -71,6 +100,30 @@ export const ACCESS_TABLE: AccessRow[] = [
     body: { decision: "verified" },
     expect: roleOnlyApi("admin", 404),
   },
+  // Batches and reservations (issue 4). Ids that name nothing: a permitted caller gets 404, nobody learns more.
+  { route: "/hatchery/batches", method: "GET", url: "/hatchery/batches", expect: roleOnlyPage("hatchery") },
+  { route: "/hatchery/batches/new", method: "GET", url: "/hatchery/batches/new", expect: roleOnlyPage("hatchery") },
+  { route: "/hatchery/batches/[id]/edit", method: "GET", url: `/hatchery/batches/${NO_ID}/edit`, expect: { ...roleOnlyPage("hatchery"), hatchery: 404 } },
+  { route: "/hatchery/reservations", method: "GET", url: "/hatchery/reservations", expect: roleOnlyPage("hatchery") },
+  { route: "/hatchery/reservations/[id]", method: "GET", url: `/hatchery/reservations/${NO_ID}`, expect: { ...roleOnlyPage("hatchery"), hatchery: 404 } },
+  { route: "/farmer/reservations", method: "GET", url: "/farmer/reservations", expect: roleOnlyPage("farmer") },
+  { route: "/farmer/reservations/new", method: "GET", url: `/farmer/reservations/new?batch=${NO_ID}`, expect: { ...roleOnlyPage("farmer"), farmer: 404 } },
+  { route: "/farmer/reservations/[id]", method: "GET", url: `/farmer/reservations/${NO_ID}`, expect: { ...roleOnlyPage("farmer"), farmer: 404 } },
+  { route: "/api/v1/batches", method: "GET", url: "/api/v1/batches", expect: roleOnlyApi("hatchery") },
+  { route: "/api/v1/batches", method: "POST", url: "/api/v1/batches", body: {}, expect: roleOnlyApi("hatchery", 400) },
+  { route: "/api/v1/batches/[id]", method: "GET", url: `/api/v1/batches/${NO_ID}`, expect: 404 },
+  { route: "/api/v1/batches/[id]", method: "PUT", url: `/api/v1/batches/${NO_ID}`, body: {}, expect: roleOnlyApi("hatchery", 400) },
+  { route: "/api/v1/batches/[id]/state", method: "POST", url: `/api/v1/batches/${NO_ID}/state`, body: {}, expect: roleOnlyApi("hatchery", 400) },
+  // A farmer lists their own; `as=hatchery` is the hatchery's incoming list (another role gets 403 for each).
+  { route: "/api/v1/reservations", method: "GET", url: "/api/v1/reservations", expect: roleOnlyApi("farmer") },
+  { route: "/api/v1/reservations", method: "POST", url: "/api/v1/reservations", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/reservations/[id]", method: "GET", url: `/api/v1/reservations/${NO_ID}`, expect: { default: 404, signedOut: 401, builder: 403 } },
+  { route: "/api/v1/reservations/[id]/actions", method: "POST", url: `/api/v1/reservations/${NO_ID}/actions`, body: {}, expect: { default: 400, signedOut: 401, builder: 403 } },
+  { route: "/api/v1/reservations/[id]/pay", method: "POST", url: `/api/v1/reservations/${NO_ID}/pay`, body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/reservations/export", method: "GET", url: "/api/v1/reservations/export", expect: roleOnlyApi("hatchery") },
+  // Machine-to-machine: a webhook without a valid signature and a sweep without the cron secret are refused for everyone.
+  { route: "/api/webhooks/stripe", method: "POST", url: "/api/webhooks/stripe", body: {}, expect: 400 },
+  { route: "/api/cron/sweep", method: "POST", url: "/api/cron/sweep", expect: 401 },
 ];
 
 export function expected(row: AccessRow, who: Visitor): number {

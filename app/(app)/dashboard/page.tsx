@@ -44,11 +44,28 @@ export default async function DashboardPage() {
               <li>Prepare a level, compacted base or slab where the tank will stand.</li>
               <li>Plan to keep new fingerlings in a net enclosure (hapa) inside the tank for about a week before releasing them.</li>
             </ol>
-            <p className="mt-3 text-sm">
-              <Link href="/safety" className="font-medium text-lagoon-700 underline underline-offset-2">
-                Safety around tanks and pumps
-              </Link>
-            </p>
+            <ul className="mt-3 space-y-2 text-sm">
+              <li>
+                <Link href="/farmer/requests/new" className="font-medium text-lagoon-700 underline underline-offset-2">
+                  Ask builders near you for a tank
+                </Link>
+              </li>
+              <li>
+                <Link href="/farmer/requests" className="font-medium text-lagoon-700 underline underline-offset-2">
+                  Your tank requests, quotes and jobs
+                </Link>
+              </li>
+              <li>
+                <Link href="/farmer/reservations" className="font-medium text-lagoon-700 underline underline-offset-2">
+                  Your fingerling reservations
+                </Link>
+              </li>
+              <li>
+                <Link href="/safety" className="font-medium text-lagoon-700 underline underline-offset-2">
+                  Safety around tanks and pumps
+                </Link>
+              </li>
+            </ul>
           </Card>
         ) : null}
 
@@ -66,12 +83,43 @@ export default async function DashboardPage() {
                   </Link>
                 </li>
               ) : null}
+              {user.roles.includes("builder") ? (
+                <>
+                  <li>
+                    <Link href="/builder/requests" className="font-medium text-lagoon-700 underline underline-offset-2">
+                      Tank requests near you
+                    </Link>
+                  </li>
+                  <li>
+                    <Link href="/builder/jobs" className="font-medium text-lagoon-700 underline underline-offset-2">
+                      Your jobs
+                    </Link>
+                  </li>
+                  <li>
+                    <Link href="/builder/portfolio" className="font-medium text-lagoon-700 underline underline-offset-2">
+                      Your portfolio of finished tanks
+                    </Link>
+                  </li>
+                </>
+              ) : null}
               {user.roles.includes("hatchery") ? (
-                <li>
-                  <Link href="/hatchery" className="font-medium text-lagoon-700 underline underline-offset-2">
-                    Species and delivery
-                  </Link>
-                </li>
+                <>
+                  <li>
+                    <Link href="/hatchery" className="font-medium text-lagoon-700 underline underline-offset-2">
+                      Species and delivery
+                    </Link>
+                  </li>
+                  <li>
+                    <Link href="/hatchery/batches" className="font-medium text-lagoon-700 underline underline-offset-2">
+                      Batches on offer
+                    </Link>
+                  </li>
+                  <li>
+                    <Link href="/hatchery/reservations" className="font-medium text-lagoon-700 underline underline-offset-2">
+                      Reservations
+                    </Link>
+                  </li>
+                </>
               ) : null}
             </ul>
           </Card>

@@ -1,12 +1,15 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { Card } from "@/components/ui/card";
 import { ResponsiveImage } from "@/components/upload/responsive-image";
+import { getCurrentUser } from "@/lib/auth/session";
 import { SPECIES_LABEL, TANK_TYPE_LABEL } from "@/lib/catalog";
 import { env } from "@/lib/env";
 import { getPublicProvider } from "@/lib/listings/provider";
 import { formatMoney } from "@/lib/money/money";
 import { feetToMetres } from "@/lib/planner/units";
+import { FinishedTanks } from "./_components/finished-tanks";
 import { ServiceArea } from "./_components/service-area";
 
 type Props = { params: Promise<{ id: string }> };
@@ -23,9 +26,23 @@ function dateOnly(iso: string): string {
   return new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 }
 
+/** Reserving is for signed-in farmers; a visitor is sent to sign in and comes back to the form. */
+function ReserveLink({ batchId, available, viewer, providerId }: { batchId: string; available: number; viewer: { id: string; farmer: boolean } | null; providerId: string }) {
+  if (available < 1 || viewer?.id === providerId) return null;
+  const form = `/farmer/reservations/new?batch=${batchId}`;
+  if (viewer && !viewer.farmer) return null;
+  return (
+    <Link href={viewer ? form : `/sign-in?next=${encodeURIComponent(form)}`} className="inline-flex min-h-11 items-center justify-center rounded-lg bg-lagoon-600 px-4 text-sm font-semibold text-white hover:bg-lagoon-700">
+      {viewer ? "Reserve" : "Sign in to reserve"}
+    </Link>
+  );
+}
+
 export default async function ProviderPage({ params }: Props) {
   const provider = await getPublicProvider((await params).id);
   if (!provider) notFound();
+  const user = provider.hatchery?.batches.length ? await getCurrentUser() : null;
+  const viewer = user ? { id: user.id, farmer: user.roles.includes("farmer") } : null;
   const kinds = [provider.hatchery ? "Hatchery" : null, provider.builder ? "Tank builder" : null].filter(Boolean).join(" · ");
   const phoneDigits = provider.phone ?? "";
   const terms = provider.builder;
@@ -120,14 +137,17 @@ export default async function ProviderPage({ params }: Props) {
               {provider.hatchery.batches.length ? (
                 <ul className="mt-3 divide-y divide-silt-100">
                   {provider.hatchery.batches.map((b) => (
-                    <li key={b.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2 text-sm">
-                      <span className="font-medium text-silt-900">
-                        {SPECIES_LABEL[b.species]}, about {b.meanWeightG} g / {b.meanLengthCm} cm
+                    <li key={b.id} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
+                      <span className="min-w-0">
+                        <span className="block font-medium text-silt-900">
+                          {SPECIES_LABEL[b.species]}, about {b.meanWeightG} g / {b.meanLengthCm} cm
+                        </span>
+                        <span className="text-silt-700">
+                          {b.countAvailable.toLocaleString("en")} left · {formatMoney(b.priceMinor, b.currency)} each ·{" "}
+                          {b.readyNow ? "ready now" : `ready ${dateOnly(b.readyFrom)}`} · until {dateOnly(b.sellBy)}
+                        </span>
                       </span>
-                      <span className="text-silt-700">
-                        {b.countAvailable.toLocaleString("en")} left · {formatMoney(b.priceMinor, b.currency)} each ·{" "}
-                        {b.readyNow ? "ready now" : `ready ${dateOnly(b.readyFrom)}`} · until {dateOnly(b.sellBy)}
-                      </span>
+                      <ReserveLink batchId={b.id} available={b.countAvailable} viewer={viewer} providerId={provider.id} />
                     </li>
                   ))}
                 </ul>
@@ -137,10 +157,7 @@ export default async function ProviderPage({ params }: Props) {
             </Card>
           ) : null}
 
-          <Card>
-            <h2 className="text-lg font-semibold">Finished tanks</h2>
-            <p className="mt-1 text-sm text-silt-600">No finished tanks shown yet.</p>
-          </Card>
+          {provider.builder ? <FinishedTanks providerId={provider.id} /> : null}
           <Card>
             <h2 className="text-lg font-semibold">Reviews</h2>
             <p className="mt-1 text-sm text-silt-600">No reviews yet. Reviews come only from farmers who completed a job or collected fish through Shoal.</p>

@@ -1,0 +1,4 @@
+"use client";
+import { ErrorState } from "@/components/ui/error-state";
+
+export default ErrorState;

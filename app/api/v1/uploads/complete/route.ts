@@ -1,0 +1,12 @@
+import { NextResponse } from "next/server";
+import { parseWith, readJson, withApi } from "@/lib/api/handler";
+import { requireApiPermission } from "@/lib/auth/session";
+import { completeForSubject } from "@/lib/uploads/upload-service";
+import { completeBodySchema } from "@/lib/validations/uploads";
+
+/** Checks the uploaded bytes, stores the metadata-free variants and records the image. */
+export const POST = withApi(async (request) => {
+  const user = await requireApiPermission(request, "upload:image");
+  const input = parseWith(completeBodySchema, await readJson(request));
+  return NextResponse.json(await completeForSubject(user, input), { status: 201 });
+});
