@@ -55,6 +55,7 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/builder/portfolio", method: "GET", url: "/builder/portfolio", expect: roleOnlyPage("builder") },
   // Route handlers
   { route: "/api/health", method: "GET", url: "/api/health", expect: ALL_200 },
+  { route: "/icons/[size]", method: "GET", url: "/icons/192", expect: ALL_200 },
   { route: "/api/auth/[...all]", method: "GET", url: "/api/auth/get-session", expect: ALL_200 },
   { route: "/api/images/[id]/[file]", method: "GET", url: "/api/images/00000000-0000-0000-0000-000000000000/320.webp", expect: 404 },
   { route: "/api/v1/me", method: "GET", url: "/api/v1/me", expect: { default: 200, signedOut: 401 } },

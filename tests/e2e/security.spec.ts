@@ -33,3 +33,20 @@ test("security headers are sent on pages and API replies", async ({ request }) =
     expect(h["x-powered-by"], path).toBeUndefined();
   }
 });
+
+test("the app can be added to a phone's home screen: manifest and icons", async ({ request }) => {
+  const manifest = (await (await request.get("/manifest.webmanifest")).json()) as { name: string; start_url: string; display: string; icons: { src: string; sizes: string }[] };
+  expect(manifest).toMatchObject({ start_url: "/", display: "standalone" });
+  for (const icon of manifest.icons) {
+    const r = await request.get(icon.src);
+    expect(r.status(), icon.src).toBe(200);
+    expect(r.headers()["content-type"]).toBe("image/png");
+    const body = await r.body();
+    // PNG signature and IHDR width/height (PNG spec, ISO/IEC 15948): bytes 16–23.
+    expect(body.subarray(1, 4).toString("latin1")).toBe("PNG");
+    const [w, h] = icon.sizes.split("x").map(Number);
+    expect(body.readUInt32BE(16)).toBe(w);
+    expect(body.readUInt32BE(20)).toBe(h);
+  }
+  expect((await request.get("/icons/100")).status()).toBe(404);
+});
