@@ -15,15 +15,9 @@ import {
   TANK_SHAPES,
   WATER_SOURCES,
 } from "../lib/jobs/vocabulary";
+import { createdAt, updatedAt } from "./columns";
 import { builder, plan, user } from "./schema";
 
-const nowMs = sql`(cast(unixepoch('subsecond') * 1000 as integer))`;
-const createdAt = () => integer("created_at", { mode: "timestamp_ms" }).notNull().default(nowMs);
-const updatedAt = () =>
-  integer("updated_at", { mode: "timestamp_ms" })
-    .notNull()
-    .default(nowMs)
-    .$onUpdate(() => new Date());
 
 // Inner size in metres, whatever unit the person typed (kept in `size_unit` to show it back the same way).
 // A rectangular tank has length and width, a round one a diameter; the check keeps the row one or the other.

@@ -9,15 +9,9 @@ import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex
 import type { HoldActor, HoldEventType, HoldState } from "../lib/payments/hold-state";
 import type { LedgerAccount, LedgerMovementKind } from "../lib/payments/ledger";
 import type { ReservationActorRole, ReservationEventType, ReservationState } from "../lib/reservations/state";
+import { createdAt, updatedAt } from "./columns";
 import { batch, user } from "./schema";
 
-const nowMs = sql`(cast(unixepoch('subsecond') * 1000 as integer))`;
-const createdAt = () => integer("created_at", { mode: "timestamp_ms" }).notNull().default(nowMs);
-const updatedAt = () =>
-  integer("updated_at", { mode: "timestamp_ms" })
-    .notNull()
-    .default(nowMs)
-    .$onUpdate(() => new Date());
 const at = (name: string) => integer(name, { mode: "timestamp_ms" });
 
 type Exactly<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;

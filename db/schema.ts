@@ -1,16 +1,8 @@
 import { relations, sql } from "drizzle-orm";
 import { BATCH_STATES, LISTING_KINDS, ROLES, SPECIES, TANK_TYPES, VERIFICATION_STATES, type Species } from "../lib/catalog";
+import { createdAt, updatedAt } from "./columns";
 import { check, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 
-const createdAt = () =>
-  integer("created_at", { mode: "timestamp_ms" })
-    .notNull()
-    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`);
-const updatedAt = () =>
-  integer("updated_at", { mode: "timestamp_ms" })
-    .notNull()
-    .default(sql`(cast(unixepoch('subsecond') * 1000 as integer))`)
-    .$onUpdate(() => new Date());
 
 // ---------------------------------------------------------------------------
 // Sign-in tables, in the shape better-auth's Drizzle adapter expects

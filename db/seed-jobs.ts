@@ -15,21 +15,11 @@ import type { allSchema } from "./all-schema";
 import * as core from "./schema";
 import * as jobs from "./schema-jobs";
 import { TOWNS } from "./seed-data";
+import { rng } from "./seed-random";
 
 type SeedDb = LibSQLDatabase<typeof allSchema>;
 type Point = { lat: number; lng: number };
 
-/** mulberry32, as in seed.ts, with its own seed so this file never shifts the rest of the scenario. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** A point `km` from `from` in a random direction (flat-earth step; fine for demo data at tens of km). */
 function offset(from: Point, km: number, rand: () => number): Point {

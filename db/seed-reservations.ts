@@ -9,6 +9,7 @@ import { entriesFor } from "../lib/payments/ledger";
 import { requestReservation, transition, type Reservation, type ReservationActor, type ReservationEvent } from "../lib/reservations/state";
 import * as core from "./schema";
 import * as tables from "./schema-reservations";
+import { rng } from "./seed-random";
 
 // Demo batches and reservations (issue 4). Open batches for every seeded hatchery, dated from today so some are
 // ready now and some soon, and reservations in each state for the demo farmer and the demo hatchery. Every state
@@ -34,16 +35,6 @@ const OFFERS: Record<Species, { g: number; cm: number; priceMinor: number }[]> =
   ],
 };
 
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function stripeFromEnv(): Stripe | null {
   const base = process.env.STRIPE_API_BASE ?? "http://127.0.0.1:4620";

@@ -16,6 +16,7 @@ import { seedJobs } from "./seed-jobs";
 import * as schema from "./schema";
 import { seedReservations } from "./seed-reservations";
 import { BUILDER_NAMES, FIRST_NAMES, HATCHERY_NAMES, SURNAMES, TOWNS, type Town } from "./seed-data";
+import { rng } from "./seed-random";
 
 export const DEMO_PASSWORD = "shoal-demo-2026";
 export const DEMO_ACCOUNTS = {
@@ -28,17 +29,6 @@ export const DEMO_ACCOUNTS = {
 
 const COUNTS = { hatcheries: 13, builders: 20, farmers: 40 };
 
-/** A small deterministic generator (mulberry32) so every seed is the same scenario. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function near(town: Town, rand: () => number, km: number): { lat: number; lng: number } {
   const r = km * Math.sqrt(rand());

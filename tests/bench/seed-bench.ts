@@ -1,18 +1,8 @@
 import { createClient } from "@libsql/client";
 import { randomUUID } from "node:crypto";
 import { PLACES } from "../../lib/places/gazetteer";
+import { rng } from "../../db/seed-random";
 
-/** Deterministic generator (mulberry32), so every bench run searches the same data. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * Fills a migrated database with `count` listings over southern and eastern Africa:
