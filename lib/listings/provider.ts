@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, eq, gte, inArray } from "drizzle-orm";
+import { cache } from "react";
 import { db } from "@/db/client";
 import { batch, builder, builderPrice, hatchery, image, listing, profile, userRole } from "@/db/schema";
 import { TANK_TYPES, type Species, type TankType } from "@/lib/catalog";
@@ -39,7 +40,7 @@ export type PublicProvider = {
 };
 
 /** What anyone may see of a provider: never the e-mail, never the exact location unless shown by choice. */
-export async function getPublicProvider(userId: string, now = new Date()): Promise<PublicProvider | null> {
+async function loadPublicProvider(userId: string, now = new Date()): Promise<PublicProvider | null> {
   const [prof] = await db.select().from(profile).where(eq(profile.userId, userId)).limit(1);
   if (!prof) return null;
   const roles = (await db.select({ role: userRole.role }).from(userRole).where(eq(userRole.userId, userId))).map((r) => r.role);
@@ -104,3 +105,6 @@ export async function getPublicProvider(userId: string, now = new Date()): Promi
     builder: builderPart,
   };
 }
+
+/** Per request: the provider page's metadata and body read the same record once. */
+export const getPublicProvider = cache(loadPublicProvider);
