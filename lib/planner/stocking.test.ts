@@ -81,10 +81,12 @@ describe("capacity", () => {
       fc.property(fc.double({ min: 0.5, max: 500, noNaN: true }), fc.double({ min: 5, max: 3000, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), (volume, harvestG, share) => {
         const one = carryingCapacityFish(tank({ waterVolumeM3: volume, harvestG, tilapiaShare: share, growOutSurvival: 0.9 }));
         const two = carryingCapacityFish(tank({ waterVolumeM3: 2 * volume, harvestG, tilapiaShare: share, growOutSurvival: 0.9 }));
-        expect(Math.abs(two - 2 * one)).toBeLessThanOrEqual(2);
+        // Whole fish: each capacity is within one fish of the exact (linear) value c·V, so
+        // |c(2V) − 2·c(V)| ≤ 1 + 2·1 = 3 (a mixed tank's species split can use all of it).
+        expect(Math.abs(two - 2 * one)).toBeLessThanOrEqual(3);
         const pond = carryingCapacityFish(tank({ tankType: "earthen", surfaceAreaM2: volume, harvestG, tilapiaShare: share }));
         const pond2 = carryingCapacityFish(tank({ tankType: "earthen", surfaceAreaM2: 2 * volume, harvestG, tilapiaShare: share }));
-        expect(Math.abs(pond2 - 2 * pond)).toBeLessThanOrEqual(2);
+        expect(Math.abs(pond2 - 2 * pond)).toBeLessThanOrEqual(3);
       }),
     );
   });
