@@ -1,6 +1,7 @@
 import "server-only";
 import { and, eq, lte } from "drizzle-orm";
 import { db } from "@/db/client";
+import { auditLog } from "@/db/schema";
 import { job, jobEvent, tankRequest } from "@/db/schema-jobs";
 import { writeTransaction, type WriteTx } from "@/db/write-transaction";
 import type { Role } from "@/lib/catalog";
@@ -165,6 +166,8 @@ export async function actOnJob(jobId: string, user: JobUser | "system", action: 
     if (action.type === "mark_built") detail.photoCount = photoCount;
     if (action.type === "resolve") Object.assign(detail, { outcome: action.outcome, releaseMinor: action.releaseMinor ?? null, note: action.note });
     await tx.insert(jobEvent).values({ jobId, event: event.type, fromState: row.state, toState: next.state, actorId: actor.role === "system" ? null : actor.userId, actorRole: actor.role, detail });
+    // An admin's decision over someone's money goes to the append-only audit log as well.
+    if (actor.role === "admin") await tx.insert(auditLog).values({ actorId: actor.userId, action: `job.${event.type}`, subjectType: "job", subjectId: jobId, detail: { from: row.state, to: next.state, ...detail }, createdAt: now });
     for (const e of holdEffects) {
       if (!holdId) continue;
       const caller = { role: e.actor, userId: actor.role === "system" ? null : actor.userId };

@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { and, eq, gte, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { batch } from "@/db/schema";
+import { auditLog, batch } from "@/db/schema";
 import { depositHold, reservation, reservationHistory, type ReservationRow } from "@/db/schema-reservations";
 import { writeTransaction, type WriteTx } from "@/db/write-transaction";
 import { can } from "@/lib/auth/permissions";
@@ -100,6 +100,10 @@ async function moveInTx(tx: WriteTx, id: string, event: ReservationEvent, actor:
     .values({ reservationId: id, fromState: row.state, toState: result.next.state, event: event.type, actorId, actorRole: actor.role, at: now, detail: { ...eventDetail(event), ...options.detail } })
     .returning({ id: reservationHistory.id });
   if (!history) throw new Error("history insert returned nothing");
+  // An admin's decision over someone's money goes to the append-only audit log as well.
+  if (actor.role === "admin") {
+    await tx.insert(auditLog).values({ actorId, action: `reservation.${event.type}`, subjectType: "reservation", subjectId: id, detail: { from: row.state, to: result.next.state, ...eventDetail(event), ...options.detail }, createdAt: now });
+  }
 
   const queuedHolds: string[] = [];
   for (const effect of result.effects) {
@@ -254,7 +258,7 @@ export async function actOnReservation(caller: Caller, id: string, action: Reser
   const outcomeText =
     action.action === "resolve_dispute" ? (action.outcome === "for_farmer" ? "The dispute was decided for the farmer: the whole deposit goes back to them." : "The dispute was decided for the hatchery: the deposit is released for the fish handed over.") : null;
   return moveReservation(id, event, actor, now, {
-    detail: reason ? { reason } : {},
+    detail: { ...(reason ? { reason } : {}), ...(action.action === "resolve_dispute" && action.note ? { note: action.note } : {}) },
     mail: { reason, outcomeText },
     countField: action.action === "report_survival" ? "survived" : "count",
   });

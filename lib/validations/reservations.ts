@@ -103,7 +103,7 @@ export const reservationActionSchema = z.discriminatedUnion("action", [
   handOverSchema,
   survivalSchema,
   disputeSchema,
-  z.object({ action: z.literal("resolve_dispute"), outcome: z.enum(["for_farmer", "for_provider"]) }),
+  z.object({ action: z.literal("resolve_dispute"), outcome: z.enum(["for_farmer", "for_provider"]), note: z.string().trim().max(2000, "Keep the note under 2000 characters").optional() }),
   z.object({ action: z.literal("refund") }),
   z.object({ action: z.literal("check"), item: z.enum(QUARANTINE_ITEMS), done: z.boolean() }),
 ]);

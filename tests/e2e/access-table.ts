@@ -43,6 +43,7 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/dashboard", method: "GET", url: "/dashboard", expect: SIGNED_IN_PAGE },
   { route: "/onboarding", method: "GET", url: "/onboarding", expect: SIGNED_IN_PAGE },
   { route: "/admin", method: "GET", url: "/admin", expect: roleOnlyPage("admin") },
+  { route: "/admin/disputes", method: "GET", url: "/admin/disputes", expect: roleOnlyPage("admin") },
   { route: "/hatchery", method: "GET", url: "/hatchery", expect: roleOnlyPage("hatchery") },
   { route: "/builder", method: "GET", url: "/builder", expect: roleOnlyPage("builder") },
   { route: "/farmer/requests", method: "GET", url: "/farmer/requests", expect: roleOnlyPage("farmer") },
