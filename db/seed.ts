@@ -15,6 +15,7 @@ import { allSchema } from "./all-schema";
 import { seedJobs } from "./seed-jobs";
 import * as schema from "./schema";
 import { seedReservations } from "./seed-reservations";
+import { seedReviews } from "./seed-reviews";
 import { BUILDER_NAMES, FIRST_NAMES, HATCHERY_NAMES, SURNAMES, TOWNS, type Town } from "./seed-data";
 import { rng } from "./seed-random";
 
@@ -207,6 +208,7 @@ export async function seedDemo(options: SeedOptions): Promise<string | null> {
     console.log(await seedJobs({ db, s3, bucket, demo: DEMO_ACCOUNTS }));
 
     const reservationsSummary = await seedReservations(client, { farmerEmail: DEMO_ACCOUNTS.farmer, hatcheryEmail: DEMO_ACCOUNTS.hatchery });
+    console.log(await seedReviews(db, DEMO_ACCOUNTS));
 
     const byRole = await db
       .select({ role: schema.userRole.role, n: sql<number>`count(*)` })

@@ -4,10 +4,12 @@ import { Layer, Map, Marker, NavigationControl, Popup, Source, type MapRef } fro
 import Link from "next/link";
 import { useEffect, useMemo, useRef, useState } from "react";
 import Supercluster from "supercluster";
+import { TrustBadge } from "@/components/trust/trust-badge";
+import type { TrustBadge as TrustBadgeData } from "@/lib/reviews/types";
 import { circlePolygon, mapStyle, prepareMapLibre } from "./map-style";
 import { ProviderMark } from "./provider-marker";
 
-export type MapItem = { id: string; providerId: string; kind: "hatchery" | "builder"; name: string; lat: number; lng: number; distanceKm: number; verified: boolean };
+export type MapItem = { id: string; providerId: string; kind: "hatchery" | "builder"; name: string; lat: number; lng: number; distanceKm: number; verified: boolean; trust: TrustBadgeData };
 
 type Props = {
   center: { lat: number; lng: number };
@@ -100,11 +102,12 @@ export default function FinderMap({ center, radiusKm, items, hostedStyleUrl, sel
       })}
       {selected ? (
         <Popup longitude={selected.lng} latitude={selected.lat} anchor="bottom" offset={18} onClose={() => onSelect(null)} closeOnClick={false}>
-          <div className="min-w-40 space-y-1 p-1 text-silt-900">
+          <div className="min-w-40 max-w-64 space-y-1 p-1 text-silt-900" data-testid="map-popup">
             <p className="font-semibold">{selected.name}</p>
             <p className="text-xs text-silt-600">
-              {selected.kind === "hatchery" ? "Hatchery" : "Tank builder"} · {selected.distanceKm} km{selected.verified ? " · checked" : ""}
+              {selected.kind === "hatchery" ? "Hatchery" : "Tank builder"} · {selected.distanceKm} km
             </p>
+            <TrustBadge badge={selected.trust} role={selected.kind} />
             <Link href={`/providers/${selected.providerId}`} className="text-sm font-semibold text-lagoon-700 underline underline-offset-2">
               Open profile
             </Link>

@@ -24,6 +24,12 @@ export const PERMISSIONS = {
   "reservation:export": ["hatchery"],
   "batch:manage": ["hatchery"],
   "review:write": ["farmer"],
+  // Reviews (issue 7). Each service checks the party again: only the reviewed provider replies, nobody votes on or
+  // reports their own review.
+  "review:respond": ["hatchery", "builder"],
+  "review:report": ["farmer", "hatchery", "builder", "admin"],
+  "review:vote": ["farmer", "hatchery", "builder", "admin"],
+  "admin:moderate-reviews": ["admin"],
   "admin:verify-providers": ["admin"],
   "admin:resolve-disputes": ["admin"],
   "admin:read-ledger": ["admin"],

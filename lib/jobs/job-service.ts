@@ -10,6 +10,8 @@ import { jobStateMail } from "@/lib/mail/job-templates";
 import type { HoldEvent } from "@/lib/payments/hold-state";
 import { applyHoldEventInTx, runHoldOperation } from "@/lib/payments/holds";
 import { addItemFromJob } from "@/lib/portfolio/portfolio-service";
+import { sendReviewRequest } from "@/lib/reviews/review-mail";
+import { afterJobMoveInTx } from "@/lib/reviews/trust-hooks";
 import { countImagesOf } from "@/lib/uploads/images";
 import type { JobAction } from "@/lib/validations/jobs";
 import { adminContacts, appUrl, contactsOf, notify } from "./notify";
@@ -154,6 +156,7 @@ export async function actOnJob(jobId: string, user: JobUser | "system", action: 
   if (holdEffects.length && !holdId) throw new Error(`job ${jobId} has no deposit hold`);
   const schedule = result.effects.find((e) => e.kind === "schedule");
 
+  let askForReview = false;
   await writeTransaction(db, async (tx: WriteTx) => {
     const moved = await tx
       .update(job)
@@ -174,12 +177,15 @@ export async function actOnJob(jobId: string, user: JobUser | "system", action: 
       await applyHoldEventInTx(tx, holdId, holdMove(e.event), caller, `job:${jobId}:${e.event.type}`, now);
     }
     if (next.state === "completed") await addItemFromJob(tx, jobId, now);
+    // Finished or dropped work changes the builder's trust; a finished job may now be reviewed.
+    askForReview = await afterJobMoveInTx(tx, row, next.state);
   });
   if (holdEffects.length && holdId) {
     const after = await runHoldOperation(holdId, now);
     if (!after.settled) console.warn("[jobs] deposit move queued for the sweep", jobId);
   }
   await sendJobMails(row, result.effects, `job:${jobId}:${action.type}`);
+  if (askForReview) await sendReviewRequest("job", jobId);
 }
 
 /** Confirms built jobs whose farmer neither confirmed nor disputed in time (run by the scheduled sweep). */

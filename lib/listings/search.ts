@@ -6,6 +6,7 @@ import type { ListingKind } from "@/lib/catalog";
 import { boundingBox } from "@/lib/geo/bounding-box";
 import { distanceMeters } from "@/lib/geo/distance";
 import { Invalid } from "@/lib/errors";
+import type { TrustBadge } from "@/lib/reviews/types";
 import type { NearbyQuery } from "@/lib/validations/search";
 import { speciesFromMask, speciesMask, tankTypeMask, tankTypesFromMask } from "./masks";
 import { chordSquared, metersFromChordSquared, SPHERICAL_RELATIVE_ERROR as EPS, unitVector } from "./sphere";
@@ -24,6 +25,8 @@ export type NearbyItem = {
   serviceRadiusKm: number;
   avatarImageId: string | null;
   trustScore: number;
+  /** the badge a card or map popup shows, read from the listing row (written with the score by refreshListings) */
+  trust: TrustBadge;
   distanceM: number;
   distanceKm: number;
 };
@@ -222,6 +225,7 @@ export async function searchNearby(q: NearbyQuery, options: { strategy?: SearchS
       serviceRadiusKm: r.serviceRadiusKm,
       avatarImageId: r.avatarImageId,
       trustScore: r.trustScore,
+      trust: { isNew: r.trustIsNew, displayRating: r.trustRating, reviews: r.trustReviews, jobsCompleted: r.trustJobsCompleted, verified: r.verified },
       distanceM: c.distanceM,
       distanceKm: Math.round(c.distanceM / 100) / 10,
     });

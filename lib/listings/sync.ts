@@ -3,6 +3,7 @@ import type { Database } from "@/db/client";
 import { builder, builderPrice, hatchery, listing, profile, userRole } from "@/db/schema";
 import { type ListingKind } from "@/lib/catalog";
 import { APPROXIMATE_PLACE_GRID_METERS, roundCoordinate } from "@/lib/geo/coordinates";
+import { computeTrust, trustColumns } from "@/lib/trust/trust-stats";
 import { speciesMask, tankTypeMask } from "./masks";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
@@ -11,8 +12,10 @@ type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
 /**
  * Rebuilds the listings of one provider from its profile and role tables: one per
- * provider role, with the public (rounded) point. Called after every change that a
- * listing shows; a provider with no location or no provider role has none.
+ * provider role, with the public (rounded) point and the role's trust score and badge
+ * (lib/trust/trust-stats.ts). Called after every change that a listing shows, trust
+ * inputs included (reviews, finished jobs and reservations, verification); a provider
+ * with no location or no provider role has none.
  */
 export async function refreshListings(tx: Tx | Database, userId: string): Promise<void> {
   const prof = (await tx.select().from(profile).where(eq(profile.userId, userId)).limit(1))[0];
@@ -32,7 +35,8 @@ export async function refreshListings(tx: Tx | Database, userId: string): Promis
       const h = (await tx.select().from(hatchery).where(eq(hatchery.userId, userId)).limit(1))[0];
       if (h) {
         kinds.push("hatchery");
-        const values = { ...common, speciesMask: speciesMask(h.species), tankTypeMask: 0, serviceRadiusKm: h.delivers ? h.deliveryRadiusKm : 0 };
+        const trust = trustColumns(await computeTrust(tx, userId, "hatchery"));
+        const values = { ...common, ...trust, speciesMask: speciesMask(h.species), tankTypeMask: 0, serviceRadiusKm: h.delivers ? h.deliveryRadiusKm : 0 };
         await tx.insert(listing).values({ userId, kind: "hatchery", ...values }).onConflictDoUpdate({ target: [listing.userId, listing.kind], set: values });
       }
     }
@@ -41,7 +45,8 @@ export async function refreshListings(tx: Tx | Database, userId: string): Promis
       if (b) {
         kinds.push("builder");
         const types = (await tx.select({ t: builderPrice.tankType }).from(builderPrice).where(eq(builderPrice.builderId, userId))).map((r) => r.t);
-        const values = { ...common, speciesMask: 0, tankTypeMask: tankTypeMask(types), serviceRadiusKm: b.serviceRadiusKm };
+        const trust = trustColumns(await computeTrust(tx, userId, "builder"));
+        const values = { ...common, ...trust, speciesMask: 0, tankTypeMask: tankTypeMask(types), serviceRadiusKm: b.serviceRadiusKm };
         await tx.insert(listing).values({ userId, kind: "builder", ...values }).onConflictDoUpdate({ target: [listing.userId, listing.kind], set: values });
       }
     }

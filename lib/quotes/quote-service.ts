@@ -10,6 +10,7 @@ import { appUrl, contactsOf, notify } from "@/lib/jobs/notify";
 import { quoteAcceptedMail, quoteNotChosenMail, quoteReceivedMail, quoteWithdrawnMail } from "@/lib/mail/job-templates";
 import { formatMoney } from "@/lib/money/money";
 import { reachOf } from "@/lib/requests/reach";
+import { afterQuoteSentInTx } from "@/lib/reviews/trust-hooks";
 import type { QuoteFormOutput } from "@/lib/validations/quotes";
 import { priceQuoteForm, type BuilderTerms } from "./quote-pricing";
 
@@ -86,6 +87,8 @@ export async function sendQuote(builderId: string, requestId: string, form: Quot
     if (existing) await tx.update(quote).set({ state: "sent", currentVersion: version }).where(eq(quote.id, quoteId));
     else await tx.insert(quote).values({ id: quoteId, requestId, builderId, state: "sent", currentVersion: version });
     const totalMinor = await writeVersion(tx, quoteId, version, form, ctx);
+    // An answer to a request changes the builder's response time (lib/trust/trust-stats.ts).
+    await afterQuoteSentInTx(tx, builderId);
     return { quoteId, version, totalMinor, currency: ctx.currency, farmerId: request.farmerId };
   });
   await tellFarmer(result.farmerId, builderId, requestId, result.quoteId, result.version, result.totalMinor, result.currency);

@@ -91,7 +91,8 @@ async function render(templateName: ReservationMailTemplate, context: MailContex
 export async function deliverPendingMail(options: { reservationId?: string; now?: Date; limit?: number } = {}): Promise<number> {
   const now = options.now ?? new Date();
   const staleClaim = new Date(now.getTime() - CLAIM_TIMEOUT_MS);
-  const claimable = and(isNull(mailOutbox.sentAt), lt(mailOutbox.attempts, MAX_ATTEMPTS), or(isNull(mailOutbox.claimedAt), lt(mailOutbox.claimedAt, staleClaim)));
+  // Only reservation messages: reviews queue theirs in the same table and send them with lib/reviews/review-mail.ts.
+  const claimable = and(eq(mailOutbox.subjectType, "reservation"), isNull(mailOutbox.sentAt), lt(mailOutbox.attempts, MAX_ATTEMPTS), or(isNull(mailOutbox.claimedAt), lt(mailOutbox.claimedAt, staleClaim)));
   const due = await db
     .select({ id: mailOutbox.id })
     .from(mailOutbox)

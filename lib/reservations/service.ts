@@ -8,6 +8,8 @@ import { writeTransaction, type WriteTx } from "@/db/write-transaction";
 import { can } from "@/lib/auth/permissions";
 import { Conflict, DomainError, Forbidden, Invalid, NotFound } from "@/lib/errors";
 import { viewOf as viewOfHold } from "@/lib/payments/hold-store";
+import { sendReviewRequest } from "@/lib/reviews/review-mail";
+import { afterReservationMoveInTx } from "@/lib/reviews/trust-hooks";
 import { applyHoldEventInTx, openHold, refundHold, runHoldOperation, type HoldView } from "@/lib/payments/holds";
 import type { ReservationAction, ReserveValues } from "@/lib/validations/reservations";
 import { reservationReference } from "./labels";
@@ -84,7 +86,7 @@ export interface MoveOptions {
  * One move of a reservation. Throws the machine's refusal (nothing is written) or Conflict if the row moved since
  * it was read. Returns the holds whose processor call was queued by the move.
  */
-async function moveInTx(tx: WriteTx, id: string, event: ReservationEvent, actor: ReservationActor, now: Date, options: MoveOptions): Promise<{ row: ReservationRow; queuedHolds: string[] }> {
+async function moveInTx(tx: WriteTx, id: string, event: ReservationEvent, actor: ReservationActor, now: Date, options: MoveOptions): Promise<{ row: ReservationRow; queuedHolds: string[]; askForReview: boolean }> {
   const row = await loadReservation(tx, id);
   const result = transition(machineOf(row), event, { actor, now });
   if (!result.ok) throw refusalError(result, options.countField);
@@ -135,7 +137,9 @@ async function moveInTx(tx: WriteTx, id: string, event: ReservationEvent, actor:
         break;
     }
   }
-  return { row: after, queuedHolds };
+  // Answers, releases, survival reports and refunds change the hatchery's trust; a released reservation may now be reviewed.
+  const askForReview = await afterReservationMoveInTx(tx, after, event.type, result.next.state, actor.role);
+  return { row: after, queuedHolds, askForReview };
 }
 
 function eventDetail(event: ReservationEvent): Record<string, unknown> {
@@ -155,9 +159,10 @@ function eventDetail(event: ReservationEvent): Record<string, unknown> {
 
 /** Runs a move, then the processor calls and e-mails it queued. */
 export async function moveReservation(id: string, event: ReservationEvent, actor: ReservationActor, now = new Date(), options: MoveOptions = {}): Promise<ReservationRow> {
-  const { row, queuedHolds } = await writeTransaction(db, (tx) => moveInTx(tx, id, event, actor, now, options));
+  const { row, queuedHolds, askForReview } = await writeTransaction(db, (tx) => moveInTx(tx, id, event, actor, now, options));
   for (const holdId of queuedHolds) await runHoldOperation(holdId, now);
   await deliverPendingMail({ reservationId: id, now });
+  if (askForReview) await sendReviewRequest("reservation", id);
   return row;
 }
 
@@ -170,11 +175,18 @@ export async function moveReservation(id: string, event: ReservationEvent, actor
  * UPDATE (… WHERE count_available >= N, so it can never go below zero or sell a fish twice, whatever runs at the
  * same time) and writes the reservation, its first history row and the hatchery's e-mail.
  */
-export async function createReservation(caller: Caller, input: ReserveValues, now = new Date()): Promise<ReservationRow> {
+export async function createReservation(caller: Caller, input: ReserveValues, now = new Date(), options: { id?: string } = {}): Promise<ReservationRow> {
   if (!can(caller, "reservation:create")) throw new Forbidden("Only a farmer account can reserve fish.");
-  const id = randomUUID();
+  // A retried API call passes the id derived from its Idempotency-Key: if the first attempt committed and then
+  // the process died before its answer was stored, the retry finds that reservation instead of taking fish twice.
+  const id = options.id ?? randomUUID();
   const actor: ReservationActor = { role: "farmer", userId: caller.id };
   const created = await writeTransaction(db, async (tx) => {
+    const earlier = options.id ? (await tx.select().from(reservation).where(eq(reservation.id, id)).limit(1))[0] : undefined;
+    if (earlier) {
+      if (earlier.farmerId !== caller.id || earlier.batchId !== input.batchId || earlier.count !== input.count) throw new Conflict("This request id belongs to another reservation.");
+      return earlier;
+    }
     const b = (await tx.select().from(batch).where(eq(batch.id, input.batchId)).limit(1))[0];
     if (!b) throw new NotFound("No such batch");
     if (b.state !== "open") throw new DomainError(b.state === "paused" ? "The hatchery has paused this batch: it takes no reservations for now." : "This batch is closed.", 409, "batch_not_open");

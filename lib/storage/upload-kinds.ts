@@ -97,7 +97,8 @@ export const UPLOAD_KINDS: { readonly [K in UploadKind]: UploadSpec } = {
     label: "review photo",
     allowedTypes: PHOTO_TYPES,
     maxBytes: 8 * MB,
-    maxCount: 4,
+    // Issue 7: "up to 6 photos" per review (lib/reviews/types.ts REVIEW_LIMITS.maxPhotos).
+    maxCount: 6,
     ownerObject: "review",
     maxPixels: PHOTO_MAX_PIXELS,
     minWidth: SMALLEST_WIDTH,

@@ -85,6 +85,26 @@ describe("composeTrust: more positive evidence never lowers the score", () => {
     );
   });
 
+  it("a faster median reply", () => {
+    fc.assert(
+      fc.property(trustStats, fc.integer({ min: 0, max: 400 }), fc.integer({ min: 0, max: 400 }), (stats, a, b) => {
+        const [fast, slow] = a <= b ? [a / 2, b / 2] : [b / 2, a / 2];
+        return score({ ...stats, medianResponseHours: fast }) >= score({ ...stats, medianResponseHours: slow });
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it("several good things at once: a completed job that also brings a 5-star review", () => {
+    fc.assert(
+      fc.property(trustStats, (stats) => {
+        const more = { ...stats, stars: { ...stats.stars, 5: stats.stars[5] + 1 }, jobsAccepted: stats.jobsAccepted + 1, jobsCompleted: stats.jobsCompleted + 1 };
+        return score(more) >= score(stats);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
   it("becoming verified", () => {
     fc.assert(
       fc.property(trustStats, (stats) => score({ ...stats, verified: true }) >= score({ ...stats, verified: false })),
@@ -152,6 +172,21 @@ describe("ranking by trust", () => {
     );
   });
 
+  it("ties keep their input order whatever that order is (a stable sort, e.g. nearest first)", () => {
+    const same: TrustStats = { ...plain, stars: { ...noStars, 4: 3, 5: 9 }, jobsAccepted: 12, jobsCompleted: 12 };
+    fc.assert(
+      fc.property(fc.array(fc.boolean(), { minLength: 2, maxLength: 25 }), (better) => {
+        // Every item is `same` except a few better ones; the `same` ones must come out in their given order.
+        const items = better.map((b, index) => ({ index, stats: b ? { ...same, verified: true } : same }));
+        const ranked = rankByTrust(items, (item) => composeTrust(item.stats));
+        const tiedOrder = ranked.filter((i) => !better[i.index]).map((i) => i.index);
+        const firstTied = ranked.findIndex((i) => !better[i.index]);
+        const lastBetter = ranked.map((i) => better[i.index]).lastIndexOf(true);
+        return tiedOrder.every((v, k) => k === 0 || (tiedOrder[k - 1] ?? -1) < v) && (lastBetter === -1 || firstTied === -1 || lastBetter < firstTied);
+      }),
+    );
+  });
+
   it("gives identical stats identical scores", () => {
     fc.assert(fc.property(trustStats, (stats) => score(stats) === score(structuredClone(stats))));
   });
@@ -197,6 +232,15 @@ describe("the 'new' threshold", () => {
         );
       }),
       { numRuns: 500 },
+    );
+  });
+
+  it("below the threshold no record, however good, shows a rating", () => {
+    fc.assert(
+      fc.property(trustStats, fc.integer({ min: 0, max: TRUST_PARAMETERS.minReviewsForRating - 1 }), (stats, fives) => {
+        const summary = composeTrust({ ...stats, stars: { ...noStars, 5: fives }, verified: true, medianResponseHours: 0 });
+        return summary.isNew && summary.displayRating === null && summary.reasons.find((r) => r.code === "rating")?.value === null;
+      }),
     );
   });
 

@@ -1,4 +1,5 @@
 import fc from "fast-check";
+import jStat from "jstat";
 import { describe, expect, it } from "vitest";
 import { normalQuantileTwoSided, wilsonInterval, wilsonLowerBound } from "./wilson";
 
@@ -103,5 +104,36 @@ describe("wilsonInterval properties", () => {
     expect(() => wilsonLowerBound(3, 2)).toThrow(RangeError);
     expect(() => wilsonLowerBound(-1, 2)).toThrow(RangeError);
     expect(() => wilsonLowerBound(1.5, 2)).toThrow(RangeError);
+  });
+});
+
+describe("wilsonInterval against E. B. Wilson, 'Probable inference…', JASA 22:209-212 (1927)", () => {
+  // Wilson's step: take the standard deviation of the TRUE rate, (pq/n)^½, not the observed one, so the limits of p
+  // are the two roots of (p − p₀)² = λ²·p(1 − p)/n (REFERENCE-VALUES 8.1 gives the solved form; this checks the
+  // bounds against the equation itself, not against the same closed form).
+  it("each bound is a root of Wilson's equation (p − p₀)² = λ²·p(1 − p)/n", () => {
+    const z = normalQuantileTwoSided(0.95);
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 4000 }), fc.integer({ min: 1, max: 4000 }), (positive, negative) => {
+        const n = positive + negative;
+        const p0 = positive / n;
+        const { lower, upper } = wilsonInterval(positive, n);
+        const residual = (p: number) => (p - p0) ** 2 - (z * z * p * (1 - p)) / n;
+        return Math.abs(residual(lower)) < 1e-12 && Math.abs(residual(upper)) < 1e-12 && lower < p0 && p0 < upper;
+      }),
+    );
+  });
+
+  it("with λ = 2 the interval is centred on (k + 2)/(n + 4), Wilson's 'add two successes and two failures'", () => {
+    // λ = 2 exactly: confidence = 2Φ(2) − 1, with Φ from jStat (0.9544997…).
+    const confidence = 2 * jStat.normal.cdf(2, 0, 1) - 1;
+    expect(Math.abs(normalQuantileTwoSided(confidence) - 2)).toBeLessThan(1e-9);
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 2000 }), fc.integer({ min: 1, max: 2000 }), (k, failures) => {
+        const n = k + failures;
+        const { lower, upper } = wilsonInterval(k, n, confidence);
+        return Math.abs((lower + upper) / 2 - (k + 2) / (n + 4)) < 1e-9;
+      }),
+    );
   });
 });

@@ -5,13 +5,14 @@ import { image, profile } from "@/db/schema";
 import { writeTransaction, type WriteTx } from "@/db/write-transaction";
 import { job, portfolioItem, tankRequest, uploadCompletion } from "@/db/schema-jobs";
 import type { Role } from "@/lib/catalog";
-import { Conflict, Forbidden, Invalid, NotFound } from "@/lib/errors";
+import { Conflict, Forbidden, NotFound } from "@/lib/errors";
 import { refreshListings } from "@/lib/listings/sync";
 import { appStorage } from "@/lib/storage/app-storage";
 import type { PresignedUpload, ProcessedUpload } from "@/lib/storage/upload-contract";
 import { UploadRefused } from "@/lib/storage/upload-errors";
 import { canUseUploadKind, isUploadKind, UPLOAD_KINDS, type UploadKind } from "@/lib/storage/upload-kinds";
 import { deleteImage, presignUpload, processUpload, uploadKey, type Storage } from "@/lib/storage/uploads";
+import { assertMayAddReviewPhotos } from "@/lib/reviews/review-photos";
 import { countImagesOf } from "./images";
 
 /*
@@ -48,7 +49,10 @@ async function openSubject(reader: Reader, user: Uploader, kind: UploadKind, sub
       if (subjectId !== user.id) throw new Forbidden("You can only change your own profile photo.");
       return 0; // a new profile photo replaces the old one
     case "review-photo":
-      throw new Invalid("Review photos are added with a review.");
+      // Named by the job or reservation under review, so the farmer can add photos before the review exists
+      // (and while it may still be edited); createReview and editReview attach them.
+      await assertMayAddReviewPhotos(reader, user.id, subjectId);
+      return countImagesOf(kind, subjectId, user.id, reader);
   }
 }
 

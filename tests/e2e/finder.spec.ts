@@ -64,7 +64,10 @@ test.describe("find nearby @phone", () => {
     await expect(page.getByRole("heading", { level: 1, name })).toBeVisible();
     await expect(page.getByRole("heading", { name: "Tanks and starting prices" })).toBeVisible();
     await expect(page.getByRole("link", { name: "Call" })).toHaveAttribute("href", /^tel:\+260/);
-    await expect(page.getByRole("img", { name: /Map of the area served/ }).locator("canvas")).toBeVisible({ timeout: 20_000 });
+    // The map loads as it nears the screen (below the reviews on a phone), so scroll to it as a reader would.
+    const area = page.getByRole("region", { name: /Map of the area served/ });
+    await area.scrollIntoViewIfNeeded();
+    await expect(area.locator("canvas")).toBeVisible({ timeout: 20_000 });
     await page.waitForTimeout(800);
     await page.screenshot({ path: `test-results/screens/provider-${info.project.name}.png`, fullPage: true });
     expect(problems).toEqual([]);

@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { ProviderMark } from "@/components/map/provider-marker";
+import { TrustBadge } from "@/components/trust/trust-badge";
 import type { NearbyItem } from "@/lib/listings/search";
 import { SPECIES_LABEL, TANK_TYPE_LABEL } from "@/lib/catalog";
 
@@ -23,8 +24,8 @@ export function ResultCard({ item, selected, onShowOnMap }: { item: NearbyItem; 
           </div>
           <p className="text-sm text-silt-600">
             {item.kind === "hatchery" ? "Hatchery" : "Tank builder"} · {item.region}
-            {item.verified ? <span className="ml-2 rounded bg-lagoon-100 px-1.5 py-0.5 text-xs font-medium text-lagoon-800">Checked</span> : null}
           </p>
+          <TrustBadge badge={item.trust} role={item.kind} className="mt-1" />
           {offers.length ? <p className="mt-1 text-sm text-silt-700">{offers.join(" · ")}</p> : null}
           <button type="button" onClick={onShowOnMap} className="mt-1 text-sm font-medium text-lagoon-700 underline underline-offset-2 lg:hidden">
             Show on map

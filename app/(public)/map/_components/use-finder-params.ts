@@ -1,6 +1,6 @@
 "use client";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useCallback, useMemo } from "react";
+import { useCallback, useEffect, useMemo, useRef } from "react";
 import { DEFAULT_PLACE } from "@/lib/places/gazetteer";
 
 export type FinderParams = {
@@ -45,9 +45,21 @@ export function useFinderParams(): [FinderParams, (next: Partial<FinderParams>) 
     };
   }, [search]);
 
+  // Two quick taps (a kind chip, then a tank type) must not undo each other: until the URL shows the last
+  // change, the next one builds on that change rather than on the URL it has not reached yet.
+  const pending = useRef<{ params: FinderParams; queries: string[] } | null>(null);
+  useEffect(() => {
+    const p = pending.current;
+    if (!p) return;
+    const at = p.queries.indexOf(search.toString());
+    // The last change arrived, or the URL moved for another reason (back button): build on the URL again.
+    if (at === -1 || at === p.queries.length - 1) pending.current = null;
+    else p.queries = p.queries.slice(at + 1);
+  }, [search]);
+
   const update = useCallback(
     (next: Partial<FinderParams>) => {
-      const merged = { ...params, ...next };
+      const merged = { ...(pending.current?.params ?? params), ...next };
       const q = new URLSearchParams();
       q.set("lat", merged.lat.toFixed(4));
       q.set("lng", merged.lng.toFixed(4));
@@ -59,6 +71,7 @@ export function useFinderParams(): [FinderParams, (next: Partial<FinderParams>) 
       if (merged.verified) q.set("verified", "true");
       if (merged.readyNow) q.set("readyNow", "true");
       if (merged.sort !== "distance") q.set("sort", merged.sort);
+      pending.current = { params: merged, queries: [...(pending.current?.queries ?? []), q.toString()] };
       router.replace(`${pathname}?${q.toString()}`, { scroll: false });
     },
     [params, pathname, router],

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { TrustBadge } from "@/components/trust/trust-badge";
 import { Card } from "@/components/ui/card";
 import { ResponsiveImage } from "@/components/upload/responsive-image";
 import { getCurrentUser } from "@/lib/auth/session";
@@ -9,10 +10,17 @@ import { env } from "@/lib/env";
 import { getPublicProvider } from "@/lib/listings/provider";
 import { formatMoney } from "@/lib/money/money";
 import { feetToMetres } from "@/lib/planner/units";
+import { parseReviewFilters, type SearchParamsRecord } from "@/lib/reviews/review-filters";
+import type { ReviewRole } from "@/lib/reviews/types";
+import { getProviderTrust } from "@/lib/trust/provider-trust";
 import { FinishedTanks } from "./_components/finished-tanks";
+import { ProviderReviews } from "./_components/provider-reviews";
+import { ProviderTrust } from "./_components/provider-trust";
 import { ServiceArea } from "./_components/service-area";
 
-type Props = { params: Promise<{ id: string }> };
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<SearchParamsRecord> };
+
+const ROLE_LABEL: Record<ReviewRole, string> = { builder: "Tank builder", hatchery: "Hatchery" };
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const provider = await getPublicProvider((await params).id);
@@ -38,11 +46,14 @@ function ReserveLink({ batchId, available, viewer, providerId }: { batchId: stri
   );
 }
 
-export default async function ProviderPage({ params }: Props) {
+export default async function ProviderPage({ params, searchParams }: Props) {
   const provider = await getPublicProvider((await params).id);
   if (!provider) notFound();
-  const user = provider.hatchery?.batches.length ? await getCurrentUser() : null;
+  // Builder first: most farmers come for a tank before they come for fish.
+  const roles: ReviewRole[] = [provider.builder ? ("builder" as const) : null, provider.hatchery ? ("hatchery" as const) : null].filter((r) => r !== null);
+  const [user, trust] = await Promise.all([getCurrentUser(), Promise.all(roles.map(async (role) => ({ role, summary: await getProviderTrust(provider.id, role) })))]);
   const viewer = user ? { id: user.id, farmer: user.roles.includes("farmer") } : null;
+  const filters = parseReviewFilters(await searchParams, roles);
   const kinds = [provider.hatchery ? "Hatchery" : null, provider.builder ? "Tank builder" : null].filter(Boolean).join(" · ");
   const phoneDigits = provider.phone ?? "";
   const terms = provider.builder;
@@ -67,6 +78,18 @@ export default async function ProviderPage({ params }: Props) {
               <span className="rounded-full bg-silt-200 px-2.5 py-1 text-sm font-medium text-silt-700">Not checked yet</span>
             )}
           </p>
+          <div className="mt-2 space-y-1">
+            {trust.map(({ role, summary }) => (
+              <a key={role} href="#trust" className="block w-fit rounded-lg hover:bg-silt-100">
+                <TrustBadge
+                  size="md"
+                  role={role}
+                  roleLabel={trust.length > 1 ? ROLE_LABEL[role] : undefined}
+                  badge={{ isNew: summary.isNew, displayRating: summary.displayRating, reviews: summary.counts.reviews, jobsCompleted: summary.counts.jobsCompleted, verified: false }}
+                />
+              </a>
+            ))}
+          </div>
         </div>
         {phoneDigits ? (
           <div className="flex w-full gap-2 sm:w-auto">
@@ -88,6 +111,8 @@ export default async function ProviderPage({ params }: Props) {
               <p className="mt-1 whitespace-pre-line text-silt-700">{provider.about}</p>
             </Card>
           ) : null}
+
+          {trust.length ? <ProviderTrust trust={trust} /> : null}
 
           {terms ? (
             <Card>
@@ -158,10 +183,7 @@ export default async function ProviderPage({ params }: Props) {
           ) : null}
 
           {provider.builder ? <FinishedTanks providerId={provider.id} /> : null}
-          <Card>
-            <h2 className="text-lg font-semibold">Reviews</h2>
-            <p className="mt-1 text-sm text-silt-600">No reviews yet. Reviews come only from farmers who completed a job or collected fish through Shoal.</p>
-          </Card>
+          {filters ? <ProviderReviews providerId={provider.id} providerName={provider.displayName} roles={roles} filters={filters} viewerId={user?.id ?? null} /> : null}
         </div>
 
         <aside className="space-y-3">

@@ -5,6 +5,7 @@ import { env } from "@/lib/env";
 import { Unauthorized } from "@/lib/errors";
 import { sweepJobs } from "@/lib/jobs/job-sweep";
 import { sweep } from "@/lib/reservations/sweep";
+import { deliverReviewMail } from "@/lib/reviews/review-mail";
 
 function authorised(request: Request): boolean {
   const given = Buffer.from(request.headers.get("authorization") ?? "");
@@ -12,8 +13,8 @@ function authorised(request: Request): boolean {
   return given.length === wanted.length && timingSafeEqual(given, wanted);
 }
 
-/** The scheduled sweep: lapses stale reservations, sends day-7 reminders, releases holds past their time. Safe to call twice at once. */
+/** The scheduled sweep: lapses stale reservations, sends day-7 reminders, releases holds past their time, sends review mail left over. Safe to call twice at once. */
 export const POST = withApi(async (request) => {
   if (!authorised(request)) throw new Unauthorized("The sweep needs the cron secret.");
-  return NextResponse.json({ swept: await sweep(), jobs: await sweepJobs() });
+  return NextResponse.json({ swept: await sweep(), jobs: await sweepJobs(), reviewMailSent: await deliverReviewMail() });
 });

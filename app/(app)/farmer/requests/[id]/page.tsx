@@ -3,6 +3,7 @@ import { Suspense } from "react";
 import { PageSkeleton } from "@/components/ui/page-skeleton";
 import { notFound } from "next/navigation";
 import { PhotoStrip } from "@/components/jobs/photo-strip";
+import { ReviewPrompt } from "@/components/reviews/review-prompt";
 import { RefreshingUploader } from "@/components/jobs/refreshing-uploader";
 import { RequestFacts } from "@/components/jobs/request-facts";
 import { ButtonLink } from "@/components/ui/button";
@@ -10,6 +11,10 @@ import { Card, PageHeading } from "@/components/ui/card";
 import { requirePagePermission, type CurrentUser } from "@/lib/auth/session";
 import { jobView } from "@/lib/jobs/job-views";
 import { farmerRequestView, isFarmersRequest } from "@/lib/requests/request-views";
+import { getReviewEligibility } from "@/lib/reviews/eligibility";
+import { getReviewForSubject } from "@/lib/reviews/queries";
+import { trustKey } from "@/lib/reviews/types";
+import { getTrustBadges } from "@/lib/trust/provider-trust";
 import { CloseRequest } from "./_components/close-request";
 import { FarmerJob } from "./_components/farmer-job";
 import { QuoteComparison } from "./_components/quote-comparison";
@@ -35,6 +40,14 @@ async function FarmerRequest({ user, id }: { user: CurrentUser; id: string }) {
   const request = await farmerRequestView(user.id, id);
   if (!request) notFound();
   const job = request.jobId ? await jobView(request.jobId, user) : null;
+  const builderIds = [...new Set([...request.quotes.map((q) => q.builder.id), ...(job ? [job.builder.id] : [])])];
+  // A review is possible (or explained) only once the job has ended or is in dispute.
+  const ended = job !== null && (job.state === "completed" || job.state === "resolved" || job.state === "disputed");
+  const [badges, review, eligibility] = await Promise.all([
+    getTrustBadges(builderIds.map((providerUserId) => ({ providerUserId, role: "builder" as const }))),
+    job && ended ? getReviewForSubject("job", job.id, user.id) : null,
+    job && ended ? getReviewEligibility(user.id, "job", job.id) : null,
+  ]);
   const lead = request.state === "open" ? "Builders within reach of your site can quote until you accept one." : request.state === "closed" ? "This request is closed." : undefined;
 
   return (
@@ -46,8 +59,9 @@ async function FarmerRequest({ user, id }: { user: CurrentUser; id: string }) {
       </PageHeading>
       <div className="grid gap-6 lg:grid-cols-[1fr_20rem]">
         <div className="min-w-0 space-y-6">
-          {job ? <FarmerJob job={job} /> : null}
-          {!job && request.quotes.length ? <QuoteComparison quotes={request.quotes} canAccept={request.state === "open"} /> : null}
+          {job && ended ? <ReviewPrompt review={review} eligibility={eligibility} formHref={`/farmer/requests/${request.id}/review`} providerName={job.builder.name} about="the tank and the work" /> : null}
+          {job ? <FarmerJob job={job} trust={badges.get(trustKey(job.builder.id, "builder"))} /> : null}
+          {!job && request.quotes.length ? <QuoteComparison quotes={request.quotes} canAccept={request.state === "open"} badges={badges} /> : null}
           {!job && request.quotes.length === 0 && request.state === "open" ? (
             <Card>
               <h2 className="text-lg font-semibold">Waiting for quotes</h2>

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { ReservationFacts } from "@/components/reservations/reservation-facts";
 import { ReservationStatus } from "@/components/reservations/status-badge";
 import { ReservationHistory, ReservationSteps } from "@/components/reservations/reservation-timeline";
+import { ReviewPrompt } from "@/components/reviews/review-prompt";
 import { Card, PageHeading } from "@/components/ui/card";
 import { requirePagePermission } from "@/lib/auth/session";
 import { NotFound } from "@/lib/errors";
@@ -11,9 +12,11 @@ import { formatMoney } from "@/lib/money/money";
 import { formatDateTime } from "@/lib/reservations/labels";
 import { RESERVATION_PARAMETERS } from "@/lib/reservations/parameters";
 import { getReservationDetail, type ReservationDetail } from "@/lib/reservations/queries";
+import { getReviewEligibility } from "@/lib/reviews/eligibility";
+import { getReviewForSubject } from "@/lib/reviews/queries";
 import { CancelReservationButton } from "../_components/cancel-button";
 import { PayForm } from "../_components/pay-form";
-import { QuarantinePanel } from "../_components/quarantine-panel";
+import { QuarantinePanel } from "../_components/quarantine-panel-lazy";
 
 export const metadata: Metadata = { title: "Your reservation" };
 
@@ -59,6 +62,10 @@ export default async function FarmerReservationPage({ params }: { params: Promis
   }
   if (r.viewerRole !== "farmer") notFound();
   const now = new Date();
+  // The hatchery review is offered once the survival report has released the deposit (day 7), or explained in a dispute.
+  const reviewable = r.state === "released" || r.state === "disputed";
+  const [review, eligibility] = reviewable ? await Promise.all([getReviewForSubject("reservation", r.id, user.id), getReviewEligibility(user.id, "reservation", r.id)]) : [null, null];
+  const handedOver = r.handedOverCount ?? r.count;
   const reportNotYet = r.notYet.find((n) => n.action === "report_survival")?.message ?? null;
   return (
     <div className="space-y-4">
@@ -94,6 +101,22 @@ export default async function FarmerReservationPage({ params }: { params: Promis
                 canDispute={r.allowed.includes("dispute")}
               />
             </Card>
+          ) : null}
+          {reviewable ? (
+            <div className="grid gap-4 lg:grid-cols-2">
+              {r.survivedCount !== null ? (
+                <Card>
+                  <h2 className="text-lg font-semibold">Your day-7 report</h2>
+                  <p className="mt-2 font-display text-3xl font-semibold text-silt-950" data-testid="survival-figure">
+                    {handedOver > 0 ? `${Math.round((r.survivedCount / handedOver) * 100)}%` : "—"}
+                  </p>
+                  <p className="text-sm text-silt-700">
+                    {r.survivedCount.toLocaleString("en")} of {handedOver.toLocaleString("en")} fish alive after the first week. This figure counts towards {r.hatchery.name}&apos;s survival record.
+                  </p>
+                </Card>
+              ) : null}
+              <ReviewPrompt review={review} eligibility={eligibility} formHref={`/farmer/reservations/${r.id}/review`} providerName={r.hatchery.name} about="the fish" />
+            </div>
           ) : null}
           <Card>
             <h2 className="mb-3 text-lg font-semibold">Reservation</h2>

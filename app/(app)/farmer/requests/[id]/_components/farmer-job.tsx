@@ -5,6 +5,7 @@ import { PhotoStrip } from "@/components/jobs/photo-strip";
 import { QuoteLines } from "@/components/jobs/quote-lines";
 import { Card } from "@/components/ui/card";
 import type { JobView } from "@/lib/jobs/job-views";
+import type { TrustBadge } from "@/lib/reviews/types";
 import { formatMoney } from "@/lib/money/money";
 import { formatDay } from "@/lib/requests/format";
 import { DepositForm } from "./deposit-form";
@@ -31,7 +32,7 @@ function depositText(job: JobView): string {
 }
 
 /** The farmer's side of a job: where it is, the deposit, the completion photos, and what to do next. */
-export function FarmerJob({ job }: { job: JobView }) {
+export function FarmerJob({ job, trust }: { job: JobView; trust?: TrustBadge }) {
   return (
     <section aria-labelledby="job-heading" className="space-y-4">
       <Card className="space-y-4">
@@ -39,7 +40,7 @@ export function FarmerJob({ job }: { job: JobView }) {
           <h2 id="job-heading" className="text-xl font-semibold text-silt-950">Your job</h2>
           <p className="rounded-full bg-lagoon-100 px-3 py-1 text-sm font-semibold text-lagoon-800" data-testid="job-state">{job.stateLabel}</p>
         </div>
-        <BuilderFacts builder={job.builder} />
+        <BuilderFacts builder={job.builder} trust={trust} />
         <p className="text-sm font-medium text-silt-800" data-testid="deposit-state">{depositText(job)}</p>
         {job.state === "awaiting_deposit" ? <DepositForm jobId={job.id} deposit={formatMoney(job.depositMinor, job.currency)} lastDecline={job.lastDecline} /> : null}
         {job.state === "built" && job.autoConfirmAt ? (

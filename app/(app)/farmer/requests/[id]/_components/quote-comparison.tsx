@@ -5,11 +5,13 @@ import { Card } from "@/components/ui/card";
 import { formatMoney } from "@/lib/money/money";
 import type { QuoteView } from "@/lib/quotes/quote-views";
 import { formatDistance } from "@/lib/requests/reach";
+import { trustKey, type TrustBadge } from "@/lib/reviews/types";
 import { AcceptQuote } from "./accept-quote";
 
 /** Quotes side by side: a short table of what differs, then each quote's lines. Cheapest first. */
-export function QuoteComparison({ quotes, canAccept }: { quotes: QuoteView[]; canAccept: boolean }) {
+export function QuoteComparison({ quotes, canAccept, badges }: { quotes: QuoteView[]; canAccept: boolean; badges?: ReadonlyMap<string, TrustBadge> }) {
   const money = (q: QuoteView, minor: number) => formatMoney(minor, q.current.currency);
+  const badgeOf = (q: QuoteView) => badges?.get(trustKey(q.builder.id, "builder"));
   const rows: [string, (q: QuoteView) => React.ReactNode][] = [
     ["Total", (q) => <strong className="tabular-nums">{money(q, q.current.totalMinor)}</strong>],
     ["Deposit (held)", (q) => <span className="tabular-nums">{money(q, q.current.depositMinor)}</span>],
@@ -18,6 +20,14 @@ export function QuoteComparison({ quotes, canAccept }: { quotes: QuoteView[]; ca
     ["Travel", (q) => <span className="tabular-nums">{money(q, q.current.lines.filter((l) => l.kind === "travel").reduce((s, l) => s + l.totalMinor, 0))}</span>],
     ["Checked by Shoal", (q) => (q.builder.verified ? "Yes" : "Not yet")],
     ["Jobs done here", (q) => String(q.builder.jobsCompleted)],
+    [
+      "Reviews",
+      (q) => {
+        const b = badgeOf(q);
+        if (!b) return "—";
+        return b.isNew || b.displayRating === null ? `New (${b.reviews})` : `${b.displayRating.toFixed(1)} of 5 (${b.reviews})`;
+      },
+    ],
     [
       "Portfolio",
       (q) => (
@@ -63,7 +73,7 @@ export function QuoteComparison({ quotes, canAccept }: { quotes: QuoteView[]; ca
       <div className="grid gap-4 lg:grid-cols-2">
         {quotes.map((q) => (
           <Card key={q.id} className="space-y-4">
-            <BuilderFacts builder={q.builder} distance={formatDistance(q.current.travelDistanceM)} />
+            <BuilderFacts builder={q.builder} distance={formatDistance(q.current.travelDistanceM)} trust={badgeOf(q)} />
             <QuoteLines quote={q.current} />
             {canAccept && q.state === "sent" ? <AcceptQuote quoteId={q.id} version={q.current.version} builderName={q.builder.name} deposit={money(q, q.current.depositMinor)} /> : null}
             {q.state === "accepted" ? <p className="rounded-lg bg-lagoon-50 p-2 text-sm font-medium text-lagoon-800">You accepted this quote.</p> : null}
