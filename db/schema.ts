@@ -78,6 +78,16 @@ export const rateLimit = sqliteTable("rate_limit", {
   lastRequest: integer("last_request").notNull(),
 });
 
+// Fixed-window counters of the app's own API limits (lib/api/rate-limit.ts): reservations and uploads. Not in
+// rate_limit above: better-auth deletes every row there idle for longer than its own longest window (60 s), which
+// would quietly reset a 10-minute window, and its last_request moves with each request rather than marking when a
+// window opened. One row per (limit, account); the key says both, e.g. "reservation:create:<userId>".
+export const apiRateLimit = sqliteTable("api_rate_limit", {
+  key: text("key").primaryKey(),
+  windowStartedAt: integer("window_started_at").notNull(),
+  count: integer("count").notNull(),
+});
+
 // ---------------------------------------------------------------------------
 // Roles and profiles
 // ---------------------------------------------------------------------------
@@ -241,6 +251,12 @@ export const listing = sqliteTable(
     serviceRadiusKm: integer("service_radius_km").notNull().default(0),
     avatarImageId: text("avatar_image_id"),
     trustScore: real("trust_score").notNull().default(0),
+    // The trust badge a card or map popup shows (lib/trust/trust-stats.ts), kept beside the score so the nearby
+    // search needs no extra query for it. Written by refreshListings with the score.
+    trustIsNew: integer("trust_is_new", { mode: "boolean" }).notNull().default(true),
+    trustRating: real("trust_rating"),
+    trustReviews: integer("trust_reviews").notNull().default(0),
+    trustJobsCompleted: integer("trust_jobs_completed").notNull().default(0),
     updatedAt: updatedAt(),
   },
   (t) => [uniqueIndex("listing_user_kind_idx").on(t.userId, t.kind)],

@@ -36,3 +36,12 @@ export class Invalid extends DomainError {
     super(message, 400, "invalid", fieldErrors);
   }
 }
+/** A limit of lib/api/rate-limit.ts was reached: 429 with Retry-After (RFC 6585 §4, RFC 9110 §10.2.3). */
+export class TooManyRequests extends DomainError {
+  constructor(
+    message: string,
+    readonly retryAfterSeconds: number,
+  ) {
+    super(message, 429, "rate_limited");
+  }
+}

@@ -28,7 +28,7 @@ async function send<T>(method: string, url: string, body?: unknown, options: Sen
   return {
     ok: false,
     status: response.status,
-    message: err?.message ?? `The server answered ${response.status}. Try again.`,
+    message: err?.message ?? (response.status >= 500 ? `Shoal could not finish this just now (error ${response.status}). Nothing you typed was lost: try again in a moment.` : `The server answered ${response.status}. Try again.`),
     fieldErrors: err?.fieldErrors,
   };
 }
@@ -36,4 +36,5 @@ async function send<T>(method: string, url: string, body?: unknown, options: Sen
 export const getJson = <T,>(url: string) => send<T>("GET", url);
 export const postJson = <T = unknown,>(url: string, body: unknown, options?: SendOptions) => send<T>("POST", url, body, options);
 export const putJson = <T = unknown,>(url: string, body: unknown) => send<T>("PUT", url, body);
+export const patchJson = <T = unknown,>(url: string, body: unknown) => send<T>("PATCH", url, body);
 export const deleteJson = <T = unknown,>(url: string) => send<T>("DELETE", url);

@@ -2,7 +2,7 @@ import "server-only";
 import { NextResponse } from "next/server";
 import { z } from "zod";
 import { env } from "@/lib/env";
-import { DomainError, Forbidden, Invalid } from "@/lib/errors";
+import { DomainError, Forbidden, Invalid, TooManyRequests } from "@/lib/errors";
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
@@ -32,7 +32,7 @@ export type ApiErrorBody = { error: { code: string; message: string; fieldErrors
 export function errorResponse(error: DomainError): NextResponse<ApiErrorBody> {
   return NextResponse.json(
     { error: { code: error.code, message: error.message, ...(error.fieldErrors ? { fieldErrors: error.fieldErrors } : {}) } },
-    { status: error.status },
+    { status: error.status, headers: error instanceof TooManyRequests ? { "Retry-After": String(error.retryAfterSeconds) } : undefined },
   );
 }
 
@@ -52,7 +52,7 @@ export function withApi<C>(handler: Handler<C>): Handler<C> {
   };
 }
 
-export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
+export function fieldErrorsOf(error: z.core.$ZodError): Record<string, string[]> {
   const out: Record<string, string[]> = {};
   for (const issue of error.issues) {
     const key = issue.path.length ? issue.path.join(".") : "_";
@@ -61,8 +61,9 @@ export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
   return out;
 }
 
-export function parseWith<T extends z.ZodType>(schema: T, input: unknown): z.infer<T> {
-  const parsed = schema.safeParse(input);
+/** Parses with zod; takes zod/mini schemas too (the form schemas in lib/validations that browsers also load). */
+export function parseWith<T extends z.core.$ZodType>(schema: T, input: unknown): z.output<T> {
+  const parsed = z.safeParse(schema, input);
   if (!parsed.success) {
     const fieldErrors = fieldErrorsOf(parsed.error);
     const first = Object.entries(fieldErrors)[0];
@@ -73,11 +74,20 @@ export function parseWith<T extends z.ZodType>(schema: T, input: unknown): z.inf
 
 /** Reads a JSON body; a body that is not JSON is the caller's mistake (400), not ours. */
 export async function readJson(request: Request): Promise<unknown> {
-  const text = await request.text();
-  if (text.length > 200_000) throw new Invalid("Request body is too large");
+  let text: string;
+  try {
+    text = await request.text();
+  } catch {
+    // The client hung up before its body arrived ("aborted", ECONNRESET): nothing ran and nobody waits for the
+    // answer. A 400 rather than a 500 keeps a dropped connection out of the unexpected-error log (the load test saw
+    // one for every request in flight when its clients stopped).
+    throw new Invalid("The request body did not arrive in full", { _: ["The request body did not arrive in full"] });
+  }
+  // The body as a whole is the field at fault ("_", as fieldErrorsOf names an issue at the root).
+  if (text.length > 200_000) throw new Invalid("Request body is too large", { _: ["Request body is too large (at most 200 000 characters)"] });
   try {
     return text ? JSON.parse(text) : {};
   } catch {
-    throw new Invalid("Request body must be JSON");
+    throw new Invalid("Request body must be JSON", { _: ["Request body must be JSON"] });
   }
 }

@@ -26,6 +26,16 @@ describe("the batch form schema", () => {
     const dates = batchFormSchema.safeParse({ ...base, pricePerFish: "1", sellBy: "2030-02-01" });
     expect(dates.success ? [] : dates.error.issues.map((i) => i.path.join("."))).toEqual(["sellBy"]);
   });
+
+  it("refuses a malformed currency code as a field issue, not a crash (found by tests/e2e/fuzz.spec.ts)", () => {
+    // ECMA-402 (Intl.NumberFormat) throws a RangeError for a currency that is not 3 ASCII letters; the price
+    // check must not reach it. "ZZZ" is well-formed for Intl, so only the ISO 4217 list check refuses it.
+    for (const currency of ["", "ðãâ", "12", "zmw ", "ZMWX"]) {
+      const r = batchFormSchema.safeParse({ ...base, pricePerFish: "1.50", currency });
+      expect(r.success, currency).toBe(false);
+      expect(r.success ? [] : r.error.issues.map((i) => i.path.join(".")), currency).toEqual(["currency"]);
+    }
+  });
 });
 
 describe("reserving and listing", () => {

@@ -10,7 +10,7 @@ type Expect = number | Partial<Record<Visitor, number>> & { default: number };
 export type AccessRow = {
   /** The route as in app/ (route groups removed), e.g. /api/v1/me or /dev/outbox/[id]. */
   route: string;
-  method: "GET" | "POST" | "PUT" | "DELETE";
+  method: "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
   /** The concrete URL requested; {hatcheryId} and {builderId} stand for the demo providers' ids. */
   url: string;
   body?: unknown;
@@ -49,6 +49,8 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/farmer/requests", method: "GET", url: "/farmer/requests", expect: roleOnlyPage("farmer") },
   { route: "/farmer/requests/new", method: "GET", url: "/farmer/requests/new", expect: roleOnlyPage("farmer") },
   { route: "/farmer/requests/[id]", method: "GET", url: "/farmer/requests/00000000-0000-4000-8000-000000000000", expect: { default: 403, signedOut: 307, farmer: 404 } },
+  // The review form of a job: the farmer's own request only (issue 7).
+  { route: "/farmer/requests/[id]/review", method: "GET", url: `/farmer/requests/${NO_ID}/review`, expect: { default: 403, signedOut: 307, farmer: 404 } },
   { route: "/builder/requests", method: "GET", url: "/builder/requests", expect: roleOnlyPage("builder") },
   { route: "/builder/requests/[id]", method: "GET", url: "/builder/requests/00000000-0000-4000-8000-000000000000", expect: { default: 403, signedOut: 307, builder: 404 } },
   { route: "/builder/jobs", method: "GET", url: "/builder/jobs", expect: roleOnlyPage("builder") },
@@ -111,6 +113,7 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/farmer/reservations", method: "GET", url: "/farmer/reservations", expect: roleOnlyPage("farmer") },
   { route: "/farmer/reservations/new", method: "GET", url: `/farmer/reservations/new?batch=${NO_ID}`, expect: { ...roleOnlyPage("farmer"), farmer: 404 } },
   { route: "/farmer/reservations/[id]", method: "GET", url: `/farmer/reservations/${NO_ID}`, expect: { ...roleOnlyPage("farmer"), farmer: 404 } },
+  { route: "/farmer/reservations/[id]/review", method: "GET", url: `/farmer/reservations/${NO_ID}/review`, expect: { ...roleOnlyPage("farmer"), farmer: 404 } },
   { route: "/api/v1/batches", method: "GET", url: "/api/v1/batches", expect: roleOnlyApi("hatchery") },
   { route: "/api/v1/batches", method: "POST", url: "/api/v1/batches", body: {}, expect: roleOnlyApi("hatchery", 400) },
   { route: "/api/v1/batches/[id]", method: "GET", url: `/api/v1/batches/${NO_ID}`, expect: 404 },
@@ -123,6 +126,15 @@ export const ACCESS_TABLE: AccessRow[] = [
   { route: "/api/v1/reservations/[id]/actions", method: "POST", url: `/api/v1/reservations/${NO_ID}/actions`, body: {}, expect: { default: 400, signedOut: 401, builder: 403 } },
   { route: "/api/v1/reservations/[id]/pay", method: "POST", url: `/api/v1/reservations/${NO_ID}/pay`, body: {}, expect: roleOnlyApi("farmer", 400) },
   { route: "/api/v1/reservations/export", method: "GET", url: "/api/v1/reservations/export", expect: roleOnlyApi("hatchery") },
+  // Reviews (issue 7). Ids that name nothing and empty bodies: the permitted role gets 400 (field named) or 404, nothing is stored.
+  { route: "/api/v1/reviews", method: "POST", url: "/api/v1/reviews", body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/reviews/[id]", method: "PATCH", url: `/api/v1/reviews/${NO_ID}`, body: {}, expect: roleOnlyApi("farmer", 400) },
+  { route: "/api/v1/reviews/[id]/reply", method: "POST", url: `/api/v1/reviews/${NO_ID}/reply`, body: {}, expect: { default: 403, signedOut: 401, hatchery: 400, builder: 400 } },
+  { route: "/api/v1/reviews/[id]/reports", method: "POST", url: `/api/v1/reviews/${NO_ID}/reports`, body: {}, expect: { default: 400, signedOut: 401 } },
+  { route: "/api/v1/reviews/[id]/helpful", method: "PUT", url: `/api/v1/reviews/${NO_ID}/helpful`, expect: { default: 404, signedOut: 401 } },
+  { route: "/api/v1/reviews/[id]/helpful", method: "DELETE", url: `/api/v1/reviews/${NO_ID}/helpful`, expect: { default: 404, signedOut: 401 } },
+  { route: "/api/v1/providers/[id]/reviews", method: "GET", url: "/api/v1/providers/{hatcheryId}/reviews?role=hatchery&sort=helpful", expect: ALL_200 },
+  { route: "/api/v1/admin/review-reports/[id]/decision", method: "POST", url: `/api/v1/admin/review-reports/${NO_ID}/decision`, body: {}, expect: roleOnlyApi("admin", 400) },
   // Machine-to-machine: a webhook without a valid signature and a sweep without the cron secret are refused for everyone.
   { route: "/api/webhooks/stripe", method: "POST", url: "/api/webhooks/stripe", body: {}, expect: 400 },
   { route: "/api/cron/sweep", method: "POST", url: "/api/cron/sweep", expect: 401 },

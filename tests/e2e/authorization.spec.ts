@@ -1,27 +1,7 @@
-import { expect, request as newRequest, test, type APIRequestContext } from "@playwright/test";
-import { readdirSync, statSync } from "node:fs";
-import { join, relative, sep } from "node:path";
+import { expect, test, type APIRequestContext } from "@playwright/test";
 import { ACCESS_TABLE, expected, VISITORS, type Visitor } from "./access-table";
-import { E2E_BASE_URL } from "./ports";
-import { DEMO, DEMO_PASSWORD } from "./support";
-
-const BASE = E2E_BASE_URL;
-
-/** Every page.tsx and route.ts under app/, as its URL pattern (route groups and _private folders removed). */
-function routesInTree(dir = "app"): string[] {
-  const out: string[] = [];
-  for (const name of readdirSync(dir)) {
-    const path = join(dir, name);
-    if (statSync(path).isDirectory()) {
-      if (name.startsWith("_")) continue;
-      out.push(...routesInTree(path));
-    } else if (/^(page|route)\.tsx?$/.test(name)) {
-      const segments = relative("app", dir).split(sep).filter((s) => s && !/^\(.*\)$/.test(s));
-      out.push(`/${segments.join("/")}`);
-    }
-  }
-  return out;
-}
+import { apiVisitor, fillPlaceholders, routesInTree } from "./app-routes";
+import { DEMO } from "./support";
 
 test("the access table lists every route in app/", () => {
   const listed = new Set(ACCESS_TABLE.map((r) => r.route));
@@ -35,13 +15,8 @@ test.describe("authorization matrix", () => {
 
   test.beforeAll(async () => {
     for (const who of VISITORS) {
-      const ctx = await newRequest.newContext({ baseURL: BASE, extraHTTPHeaders: { origin: BASE }, maxRedirects: 0 });
-      if (who !== "signedOut") {
-        const r = await ctx.post("/api/auth/sign-in/email", { data: { email: DEMO[who], password: DEMO_PASSWORD } });
-        expect(r.status(), `sign in as ${who}`).toBe(200);
-        const me = (await (await ctx.get("/api/v1/me")).json()) as { user: { id: string } };
-        ids[`${who}Id`] = me.user.id;
-      }
+      const { ctx, id } = await apiVisitor(who === "signedOut" ? null : DEMO[who]);
+      if (id) ids[`${who}Id`] = id;
       contexts.set(who, ctx);
     }
   });
@@ -57,7 +32,7 @@ test.describe("authorization matrix", () => {
       for (const who of VISITORS) {
         const ctx = contexts.get(who);
         if (!ctx) throw new Error("no context");
-        const url = row.url.replace(/\{(\w+)\}/g, (_, key: string) => ids[key] ?? key);
+        const url = fillPlaceholders(row.url, ids);
         const r = await ctx.fetch(url, { method: row.method, data: row.body, maxRedirects: 0 });
         seen[who] = r.status();
         want[who] = expected(row, who);
