@@ -39,7 +39,8 @@ const config: Config = {
           200: "#d9d6cb",
           300: "#bdb8a8",
           400: "#9a9482",
-          500: "#7b7565",
+          // Darkened from #7b7565 so small grey text also reaches 4.5:1 on the page ground (silt-50) and lagoon-50.
+          500: "#757060",
           600: "#615c4f",
           700: "#4d4940",
           800: "#3a3731",

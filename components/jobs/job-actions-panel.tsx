@@ -1,6 +1,6 @@
 "use client";
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field, FormError, inputClass } from "@/components/ui/field";
 import { postJson } from "@/lib/api/client";
@@ -19,6 +19,17 @@ export function JobActionsPanel({ jobId, buttons, photoHint }: { jobId: string; 
   const [error, setError] = useState<string | null>(null);
   const [open, setOpen] = useState<"dispute" | "cancel" | null>(null);
   const [reason, setReason] = useState("");
+  // The reason box opens below its button: focus goes into it, and Escape closes it and returns to that button.
+  const reasonRef = useRef<HTMLTextAreaElement>(null);
+  const toggles = { dispute: useRef<HTMLButtonElement>(null), cancel: useRef<HTMLButtonElement>(null) };
+  useEffect(() => {
+    if (open) reasonRef.current?.focus();
+  }, [open]);
+  function closeReason() {
+    const was = open;
+    setOpen(null);
+    if (was) toggles[was].current?.focus();
+  }
 
   async function act(body: Record<string, string>) {
     setBusy(body.type ?? null);
@@ -43,12 +54,12 @@ export function JobActionsPanel({ jobId, buttons, photoHint }: { jobId: string; 
           </Button>
         ))}
         {buttons.includes("dispute") ? (
-          <Button type="button" variant="secondary" onClick={() => setOpen(open === "dispute" ? null : "dispute")} aria-expanded={open === "dispute"}>
+          <Button ref={toggles.dispute} type="button" variant="secondary" onClick={() => setOpen(open === "dispute" ? null : "dispute")} aria-expanded={open === "dispute"} aria-controls="job-reason-form">
             Something is wrong: open a dispute
           </Button>
         ) : null}
         {buttons.includes("cancel") ? (
-          <Button type="button" variant="ghost" onClick={() => setOpen(open === "cancel" ? null : "cancel")} aria-expanded={open === "cancel"}>
+          <Button ref={toggles.cancel} type="button" variant="ghost" onClick={() => setOpen(open === "cancel" ? null : "cancel")} aria-expanded={open === "cancel"} aria-controls="job-reason-form">
             Cancel the job
           </Button>
         ) : null}
@@ -56,14 +67,21 @@ export function JobActionsPanel({ jobId, buttons, photoHint }: { jobId: string; 
       {simple.includes("mark_built") && photoHint ? <p className="text-xs text-silt-600">{photoHint}</p> : null}
       {open ? (
         <form
+          id="job-reason-form"
           className="space-y-2 rounded-lg border border-silt-200 bg-silt-50 p-3"
+          onKeyDown={(e) => {
+            if (e.key === "Escape") {
+              e.preventDefault();
+              closeReason();
+            }
+          }}
           onSubmit={(e) => {
             e.preventDefault();
             void act({ type: open, reason });
           }}
         >
           <Field id="job-reason" label={open === "dispute" ? "What is wrong? Shoal reads this before deciding." : "Why cancel? (optional)"}>
-            <textarea id="job-reason" rows={3} className={inputClass} value={reason} onChange={(e) => setReason(e.target.value)} />
+            <textarea ref={reasonRef} id="job-reason" rows={3} className={inputClass} value={reason} onChange={(e) => setReason(e.target.value)} />
           </Field>
           <p className="text-xs text-silt-600">
             {open === "dispute"

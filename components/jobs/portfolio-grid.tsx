@@ -4,8 +4,14 @@ import { TANK_TYPE_LABEL } from "@/lib/catalog";
 import type { PortfolioEntry } from "@/lib/portfolio/portfolio-service";
 import { describeSize, formatDay } from "@/lib/requests/format";
 
-/** Finished tanks: photos, type, size, an approximate place and the date; Shoal jobs carry the mark. */
-export function PortfolioGrid({ items, actions }: { items: readonly PortfolioEntry[]; actions?: (item: PortfolioEntry) => ReactNode }) {
+/** How wide a cover photo is drawn where the page does not say (HTML Standard, sizes attribute). */
+const COVER_SIZES = "(min-width: 1024px) 22rem, (min-width: 640px) 45vw, 92vw";
+
+/**
+ * Finished tanks: photos, type, size, an approximate place and the date; Shoal jobs carry the mark. `coverSizes`
+ * states the cover's drawn width for the page's own layout, so the browser does not fetch a wider file than it shows.
+ */
+export function PortfolioGrid({ items, actions, coverSizes = COVER_SIZES }: { items: readonly PortfolioEntry[]; actions?: (item: PortfolioEntry) => ReactNode; coverSizes?: string }) {
   return (
     <ul className="grid gap-4 sm:grid-cols-2" aria-label="Finished tanks">
       {items.map((item) => {
@@ -13,7 +19,7 @@ export function PortfolioGrid({ items, actions }: { items: readonly PortfolioEnt
         return (
           <li key={item.id} className="overflow-hidden rounded-card border border-silt-200 bg-white" data-testid="portfolio-item">
             {cover ? (
-              <ResponsiveImage {...cover} alt={cover.alt || `${TANK_TYPE_LABEL[item.tankType]} tank near ${item.placeName}`} sizes="(min-width: 1024px) 22rem, (min-width: 640px) 45vw, 92vw" className="aspect-[3/2] w-full object-cover" />
+              <ResponsiveImage {...cover} alt={cover.alt || `${TANK_TYPE_LABEL[item.tankType]} tank near ${item.placeName}`} sizes={coverSizes} className="aspect-[3/2] w-full object-cover" />
             ) : null}
             <div className="space-y-1.5 p-3">
               <div className="flex flex-wrap items-center gap-2">

@@ -4,6 +4,12 @@ import { Logo } from "./logo";
 import { SignOutButton } from "./sign-out-button";
 import { PUBLIC_NAV } from "./nav";
 
+/*
+ * The header's links do not prefetch. It is on every page, and a link to a route with a loading.tsx (sign-in,
+ * sign-up, the planner) would otherwise fetch that route's code as soon as it is on screen: about 40 KB gzipped
+ * for the two account forms and 45 KB for the planner, on every page view, on data most visitors pay for. A tap
+ * fetches the page as a normal client-side navigation, showing its loading state.
+ */
 export async function SiteHeader() {
   const user = await getCurrentUser();
   return (
@@ -15,7 +21,7 @@ export async function SiteHeader() {
         </Link>
         <nav aria-label="Main" className="ml-2 hidden gap-1 sm:flex">
           {PUBLIC_NAV.map((item) => (
-            <Link key={item.href} href={item.href} className="rounded-lg px-3 py-2 text-sm font-medium text-silt-700 hover:bg-silt-100">
+            <Link key={item.href} href={item.href} prefetch={false} className="rounded-lg px-3 py-2 text-sm font-medium text-silt-700 hover:bg-silt-100">
               {item.label}
             </Link>
           ))}
@@ -30,10 +36,10 @@ export async function SiteHeader() {
             </>
           ) : (
             <>
-              <Link href="/sign-in" className="rounded-lg px-3 py-2 text-sm font-medium text-silt-700 hover:bg-silt-100">
+              <Link href="/sign-in" prefetch={false} className="rounded-lg px-3 py-2 text-sm font-medium text-silt-700 hover:bg-silt-100">
                 Sign in
               </Link>
-              <Link href="/sign-up" className="rounded-lg bg-lagoon-600 px-3 py-2 text-sm font-semibold text-white hover:bg-lagoon-700">
+              <Link href="/sign-up" prefetch={false} className="rounded-lg bg-lagoon-600 px-3 py-2 text-sm font-semibold text-white hover:bg-lagoon-700">
                 Join
               </Link>
             </>
@@ -42,7 +48,7 @@ export async function SiteHeader() {
       </div>
       <nav aria-label="Main (small screens)" className="flex gap-1 overflow-x-auto border-t border-silt-100 px-2 py-1 sm:hidden">
         {PUBLIC_NAV.map((item) => (
-          <Link key={item.href} href={item.href} className="whitespace-nowrap rounded-lg px-3 py-2 text-sm font-medium text-silt-700">
+          <Link key={item.href} href={item.href} prefetch={false} className="whitespace-nowrap rounded-lg px-3 py-2 text-sm font-medium text-silt-700">
             {item.label}
           </Link>
         ))}

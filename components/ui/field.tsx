@@ -1,7 +1,9 @@
 import type { ComponentProps, ReactNode } from "react";
 
+// The border (silt-400, 3:1 on white) shows where a box is (WCAG 2.2 SC 1.4.11); placeholders are silt-500 so hint
+// text stays readable (4.5:1) yet lighter than typed text. Focus shows the app's one ring (app/globals.css).
 export const inputClass =
-  "block w-full rounded-lg border border-silt-300 bg-white px-3 py-2.5 text-base text-silt-900 placeholder:text-silt-400 focus:border-lagoon-500 focus:outline-none focus:ring-2 focus:ring-lagoon-200 aria-[invalid=true]:border-clay-500";
+  "block w-full rounded-lg border border-silt-400 bg-white px-3 py-2.5 text-base text-silt-900 placeholder:text-silt-500 focus:border-lagoon-600 aria-[invalid=true]:border-clay-500";
 
 type FieldProps = { id: string; label: string; hint?: ReactNode; error?: string; children: ReactNode };
 

@@ -26,6 +26,8 @@ export type ImageUploaderProps = {
   existingCount?: number;
   label?: string;
   onUploaded?: (image: ProcessedUpload) => void;
+  /** Leave finished uploads out of the list, for a caller that shows them itself (e.g. with a Remove button). */
+  hideDone?: boolean;
 };
 
 const EXTENSION_TYPES: Record<string, string> = { jpg: "image/jpeg", jpeg: "image/jpeg", png: "image/png", webp: "image/webp" };
@@ -39,7 +41,7 @@ function declaredType(file: File): string {
 // Network trouble, server trouble, an expired link or rate limiting are worth retrying; a refusal of the file is not.
 const retryable = (status: number) => status === 0 || status === 404 || status === 408 || status === 429 || status >= 500;
 
-export function ImageUploader({ kind, presignUrl, completeUrl, context, existingCount = 0, label, onUploaded }: ImageUploaderProps) {
+export function ImageUploader({ kind, presignUrl, completeUrl, context, existingCount = 0, label, onUploaded, hideDone = false }: ImageUploaderProps) {
   const spec = UPLOAD_KINDS[kind];
   const inputId = useId();
   const [items, setItems] = useState<Item[]>([]);
@@ -153,9 +155,9 @@ export function ImageUploader({ kind, presignUrl, completeUrl, context, existing
       <p aria-live="polite" className="sr-only">
         {announcement}
       </p>
-      {items.length > 0 ? (
+      {items.some((i) => !hideDone || i.status !== "done") ? (
         <ul className="space-y-2">
-          {items.map((item) => (
+          {items.filter((i) => !hideDone || i.status !== "done").map((item) => (
             <UploadRow key={item.key} item={item} onRetry={() => retry(item)} onRemove={() => remove(item)} />
           ))}
         </ul>

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { $ZodDiscriminatedUnion, $ZodNullable, $ZodNumber, $ZodObject, $ZodOptional, type $ZodType } from "zod/v4/core";
 import { planInputSchema } from "@/lib/validations/planner";
 
 /*
@@ -70,22 +70,24 @@ export function numberFieldSpec(path: NumberFieldPath): NumberFieldSpec {
   return spec;
 }
 
-// Bounds of each number, read from planInputSchema itself so that the form's messages cannot drift from it.
-function unwrapped(schema: z.ZodType): z.ZodType {
+// Bounds of each number, read from planInputSchema itself so that the form's messages cannot drift from it. The
+// schema is a zod/mini one (it runs in the browser), so this walks zod's core classes rather than zod's full API,
+// imported by name: `z.core.…` would make the bundler keep all of zod's core (locales and JSON Schema included).
+function unwrapped(schema: $ZodType): $ZodType {
   let s = schema;
-  while (s instanceof z.ZodOptional || s instanceof z.ZodNullable) s = s.unwrap() as z.ZodType;
+  while (s instanceof $ZodOptional || s instanceof $ZodNullable) s = s._zod.def.innerType;
   return s;
 }
 
-function schemaAt(path: string): z.ZodType | undefined {
-  let node: z.ZodType | undefined = planInputSchema;
+function schemaAt(path: string): $ZodType | undefined {
+  let node: $ZodType | undefined = planInputSchema;
   for (const key of path.split(".")) {
-    const here: z.ZodType | undefined = node ? unwrapped(node) : undefined;
-    if (here instanceof z.ZodObject) {
-      node = (here.shape as Record<string, z.ZodType>)[key];
-    } else if (here instanceof z.ZodDiscriminatedUnion) {
-      const options = here.options as readonly z.ZodType[];
-      node = options.map((o) => (o instanceof z.ZodObject ? (o.shape as Record<string, z.ZodType>)[key] : undefined)).find(Boolean);
+    const here: $ZodType | undefined = node ? unwrapped(node) : undefined;
+    if (here instanceof $ZodObject) {
+      node = (here._zod.def.shape as Record<string, $ZodType>)[key];
+    } else if (here instanceof $ZodDiscriminatedUnion) {
+      const options = here._zod.def.options as readonly $ZodType[];
+      node = options.map((o) => (o instanceof $ZodObject ? (o._zod.def.shape as Record<string, $ZodType>)[key] : undefined)).find(Boolean);
     } else {
       return undefined;
     }
@@ -102,8 +104,19 @@ export interface FieldBounds {
 /** The range planInputSchema allows for a field, in schema units. */
 export function schemaBounds(path: NumberFieldPath): FieldBounds {
   const schema = schemaAt(path);
-  if (!(schema instanceof z.ZodNumber) || schema.minValue === null || schema.maxValue === null) throw new Error(`No bounded number at ${path}`);
-  return { min: schema.minValue, max: schema.maxValue, whole: schema.isInt };
+  if (!(schema instanceof $ZodNumber)) throw new Error(`No bounded number at ${path}`);
+  // The number's checks as zod's core defines them: z.gte is "greater_than", z.lte "less_than", z.int a "number_format".
+  let min = Number.NEGATIVE_INFINITY;
+  let max = Number.POSITIVE_INFINITY;
+  let whole = false;
+  for (const check of schema._zod.def.checks ?? []) {
+    const def = check._zod.def as { check: string; value?: unknown; format?: unknown };
+    if (def.check === "greater_than" && typeof def.value === "number") min = Math.max(min, def.value);
+    else if (def.check === "less_than" && typeof def.value === "number") max = Math.min(max, def.value);
+    else if (def.check === "number_format" && typeof def.format === "string" && def.format.includes("int")) whole = true;
+  }
+  if (!Number.isFinite(min) || !Number.isFinite(max)) throw new Error(`No bounded number at ${path}`);
+  return { min, max, whole };
 }
 
 /** A field's unit as shown in the form, e.g. "ft", "%", "K" or "g". */

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "zod/mini";
 import { minorDigits } from "@/lib/money/money";
 import { feetToMetres, metresToFeet } from "@/lib/planner/units";
 import {
@@ -38,13 +38,15 @@ export interface PlanDraft {
   exactLengthsM: Partial<Record<NumberFieldPath, number>>;
 }
 
-const numberTexts = z.object(Object.fromEntries(NUMBER_FIELDS.map((f) => [f.path, z.string().max(40)])) as Record<NumberFieldPath, z.ZodString>);
+// zod/mini, as the planner's schema: this runs in the browser (the draft kept on the device), where all of zod would
+// cost about 31 KB gzipped. A stored draft that fails is dropped, never shown, so these checks need no messages.
+const numberTexts = z.object(Object.fromEntries(NUMBER_FIELDS.map((f) => [f.path, z.string().check(z.maxLength(40))])) as Record<NumberFieldPath, z.ZodMiniString>);
 
 /** Checks a draft read back from storage (it may be old or edited by hand). */
 export const planDraftSchema = z.object({
   version: z.literal(1),
   lengthUnit: z.enum(LENGTH_UNITS),
-  currency: z.string().max(8),
+  currency: z.string().check(z.maxLength(8)),
   tankType: z.enum(TANK_TYPES),
   shape: z.enum(TANK_SHAPES),
   linerColour: z.enum(LINER_COLOURS),
@@ -52,7 +54,7 @@ export const planDraftSchema = z.object({
   species: z.enum(SPECIES_CHOICES),
   catfishShadeProvided: z.boolean(),
   numbers: numberTexts,
-  exactLengthsM: z.partialRecord(z.enum(NUMBER_FIELDS.map((f) => f.path) as [NumberFieldPath, ...NumberFieldPath[]]), z.number()).default({}),
+  exactLengthsM: z._default(z.partialRecord(z.enum(NUMBER_FIELDS.map((f) => f.path) as [NumberFieldPath, ...NumberFieldPath[]]), z.number()), {}),
 });
 
 /** Minor digits of a currency, or 2 while the code typed is not yet a well-formed ISO 4217 code (the schema says so). */

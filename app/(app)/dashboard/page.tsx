@@ -26,13 +26,14 @@ export default async function DashboardPage() {
   return (
     <div>
       <PageHeading title={`Hello, ${profile?.displayName ?? user.name}`} lead="Everything you do on Shoal starts here.">
-        <div className="flex flex-wrap gap-2" aria-label="Your roles">
+        {/* A list, so its name is read (aria-label on a plain div is ignored by screen readers: ARIA 1.2). */}
+        <ul className="flex flex-wrap gap-2" aria-label="Your roles">
           {user.roles.map((r) => (
-            <span key={r} className="rounded-full bg-lagoon-100 px-3 py-1 text-sm font-medium text-lagoon-800">
+            <li key={r} className="rounded-full bg-lagoon-100 px-3 py-1 text-sm font-medium text-lagoon-800">
               {ROLE_LABEL[r]}
-            </span>
+            </li>
           ))}
-        </div>
+        </ul>
       </PageHeading>
 
       <div className="grid gap-4 md:grid-cols-2">

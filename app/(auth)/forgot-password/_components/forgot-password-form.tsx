@@ -20,7 +20,7 @@ export function ForgotPasswordForm() {
     setFormError(null);
     const { error } = await authApi.requestPasswordReset({ email: email.trim(), redirectTo: "/reset-password" });
     if (error) {
-      setFormError(error.status === 429 ? "Too many requests. Wait a minute and try again." : "We could not send the link. Try again.");
+      setFormError(error.status === 0 ? (error.message ?? "You seem to be offline.") : error.status === 429 ? "Too many requests. Wait a minute and try again." : "We could not send the link. Try again.");
       return;
     }
     setSentTo(email.trim());

@@ -21,7 +21,9 @@ export function SignInForm({ next }: { next: string }) {
     setFormError(null);
     const { error } = await authApi.signIn({ email: values.email.trim(), password: values.password, callbackURL: next });
     if (error) {
-      if (error.code === "EMAIL_NOT_VERIFIED") setFormError("Confirm your e-mail first. We have sent you a new confirmation link.");
+      // status 0: the request never reached us (offline); lib/auth/auth-api.ts words that.
+      if (error.status === 0) setFormError(error.message ?? "You seem to be offline. Check your connection and try again.");
+      else if (error.code === "EMAIL_NOT_VERIFIED") setFormError("Confirm your e-mail first. We have sent you a new confirmation link.");
       else if (error.status === 429) setFormError("Too many attempts. Wait a minute and try again.");
       else setFormError("That e-mail and password do not match an account.");
       return;

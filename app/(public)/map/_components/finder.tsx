@@ -47,7 +47,7 @@ export function Finder({ hostedStyleUrl }: { hostedStyleUrl: string | null }) {
 
   const items: NearbyItem[] = useMemo(() => results.data?.pages.flatMap((p) => p.items) ?? [], [results.data]);
   const mapItems = useMemo(
-    () => items.map((i) => ({ id: String(i.listingId), providerId: i.providerId, kind: i.kind, name: i.displayName, lat: i.lat, lng: i.lng, distanceKm: i.distanceKm, verified: i.verified })),
+    () => items.map((i) => ({ id: String(i.listingId), providerId: i.providerId, kind: i.kind, name: i.displayName, lat: i.lat, lng: i.lng, distanceKm: i.distanceKm, verified: i.verified, trust: i.trust })),
     [items],
   );
   const showMap = wide || tab === "map";

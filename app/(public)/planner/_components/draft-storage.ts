@@ -1,4 +1,4 @@
-import { z } from "zod";
+import * as z from "zod/mini";
 import { planDraftSchema, type PlanDraft } from "@/lib/plans/plan-draft";
 
 /*
@@ -8,7 +8,7 @@ import { planDraftSchema, type PlanDraft } from "@/lib/plans/plan-draft";
 
 const KEY = "shoal.planner.draft";
 
-const storedSchema = z.object({ draft: planDraftSchema, fromPlanId: z.string().max(64).nullable() });
+const storedSchema = z.object({ draft: planDraftSchema, fromPlanId: z.nullable(z.string().check(z.maxLength(64))) });
 
 export interface StoredDraft {
   draft: PlanDraft;

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/field";
 import { postJson } from "@/lib/api/client";
 import { formatMoney } from "@/lib/money/money";
-import { TEST_PAYMENT_METHODS } from "@/lib/validations/reservations";
+import { TEST_PAYMENT_METHODS } from "@/lib/reservations/test-payment-methods";
 import { AttemptKeys } from "./attempt-key";
 
 /**

@@ -49,9 +49,8 @@ export function BatchForm({ batchId, initial }: Props) {
   return (
     <form onSubmit={onSubmit} noValidate>
       <Card className="space-y-5">
-        <FormError message={failure} />
         <Field id="species" label="Species" error={err("species")}>
-          <select id="species" className={inputClass} aria-invalid={Boolean(err("species"))} {...register("species")}>
+          <select id="species" className={inputClass} aria-invalid={Boolean(err("species"))} aria-describedby={describedBy("species", err("species"))} {...register("species")}>
             {SPECIES.map((s) => (
               <option key={s} value={s}>
                 {SPECIES_LABEL[s]}
@@ -68,7 +67,7 @@ export function BatchForm({ batchId, initial }: Props) {
           <div className="grid grid-cols-[1fr_6rem] gap-2">
             {number("pricePerFish", "Price per fish")}
             <Field id="currency" label="Currency" error={err("currency")}>
-              <Input id="currency" maxLength={3} autoCapitalize="characters" aria-invalid={Boolean(err("currency"))} {...register("currency")} />
+              <Input id="currency" maxLength={3} autoCapitalize="characters" aria-invalid={Boolean(err("currency"))} aria-describedby={describedBy("currency", err("currency"))} {...register("currency")} />
             </Field>
           </div>
         </div>
@@ -96,6 +95,8 @@ export function BatchForm({ batchId, initial }: Props) {
             </p>
           ) : null}
         </fieldset>
+        {/* Beside the buttons, where the eye is after pressing one. */}
+        <FormError message={failure} />
         <div className="flex flex-wrap gap-3">
           <Button type="submit" disabled={isSubmitting}>
             {isSubmitting ? "Saving…" : batchId ? "Save changes" : "Post batch"}

@@ -1,5 +1,6 @@
 "use client";
 import { keepPreviousData, useQuery, useQueryClient } from "@tanstack/react-query";
+import dynamic from "next/dynamic";
 import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import { ReservationStatus } from "@/components/reservations/status-badge";
@@ -11,8 +12,17 @@ import { formatMoney } from "@/lib/money/money";
 import { formatDateTime } from "@/lib/reservations/labels";
 import type { ReservationPage, ReservationSummary } from "@/lib/reservations/queries";
 import type { OwnBatch } from "@/lib/reservations/batches";
-import { RESERVATION_FILTERS, RESERVATION_SORTS } from "@/lib/validations/reservations";
-import { HandOverForm } from "./hand-over-form";
+import { RESERVATION_FILTERS, RESERVATION_SORTS } from "@/lib/reservations/list-options";
+
+// The hand-over form (react-hook-form and its zod schema, about 30 KB gzipped) loads when "Hand over" is pressed,
+// not with the table: most visits answer requests or read the list.
+const HandOverForm = dynamic(() => import("./hand-over-form").then((m) => m.HandOverForm), {
+  loading: () => (
+    <p role="status" className="text-sm text-silt-600">
+      Opening the hand-over form…
+    </p>
+  ),
+});
 
 type Filter = (typeof RESERVATION_FILTERS)[number];
 type Sort = (typeof RESERVATION_SORTS)[number];
@@ -170,18 +180,24 @@ export function ReservationTable({ initialBatchId }: { initialBatchId: string | 
       </div>
 
       {list.isError ? (
-        <div role="alert" className="rounded-card border border-clay-500/30 bg-clay-50 p-4 text-sm text-clay-700">
-          Could not load reservations: {list.error.message}{" "}
-          <button type="button" className="font-semibold underline" onClick={() => list.refetch()}>
-            Try again
-          </button>
+        <div role="alert" className="flex flex-wrap items-center justify-between gap-3 rounded-card border border-clay-500/30 bg-clay-50 p-4 text-sm text-clay-700">
+          <p>Could not load reservations: {list.error.message}</p>
+          <Button type="button" variant="secondary" disabled={list.isFetching} onClick={() => void list.refetch()}>
+            {list.isFetching ? "Trying…" : "Try again"}
+          </Button>
         </div>
       ) : null}
 
-      {list.isPending ? (
-        <div className="space-y-2" aria-busy="true" aria-label="Loading reservations">
+      {list.isPending && list.fetchStatus === "paused" ? (
+        // TanStack Query holds the request while the browser is offline and sends it when the connection returns.
+        <p role="status" className="rounded-card border border-reed-300 bg-reed-50 p-4 text-sm text-reed-900">
+          You are offline. The reservations load as soon as the connection is back.
+        </p>
+      ) : list.isPending ? (
+        <div role="status" aria-busy="true" className="space-y-2" data-testid="reservations-skeleton">
+          <span className="sr-only">Loading reservations…</span>
           {[0, 1, 2].map((i) => (
-            <div key={i} className="h-14 animate-pulse rounded-lg bg-silt-200" />
+            <div key={i} aria-hidden="true" className="h-14 animate-pulse rounded-lg bg-silt-200" />
           ))}
         </div>
       ) : data && data.rows.length === 0 ? (

@@ -3,12 +3,13 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/field";
+import { useConfirmStep } from "@/components/ui/use-confirm-step";
 import { postJson } from "@/lib/api/client";
 
 /** Accept, with one confirming step: the other builders are told and the deposit is asked for next. */
 export function AcceptQuote({ quoteId, version, builderName, deposit }: { quoteId: string; version: number; builderName: string; deposit: string }) {
   const router = useRouter();
-  const [asking, setAsking] = useState(false);
+  const step = useConfirmStep();
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
 
@@ -21,24 +22,24 @@ export function AcceptQuote({ quoteId, version, builderName, deposit }: { quoteI
     router.refresh();
   }
 
-  if (!asking) {
+  if (!step.asking) {
     return (
-      <Button type="button" className="w-full" onClick={() => setAsking(true)}>
+      <Button ref={step.triggerRef} type="button" className="w-full" onClick={step.ask}>
         Accept {builderName}&apos;s quote
       </Button>
     );
   }
   return (
-    <div className="space-y-2 rounded-lg border border-lagoon-200 bg-lagoon-50 p-3" role="group" aria-label={`Accept ${builderName}'s quote`}>
+    <div className="space-y-2 rounded-lg border border-lagoon-200 bg-lagoon-50 p-3" role="group" aria-label={`Accept ${builderName}'s quote`} onKeyDown={step.onKeyDown}>
       <p className="text-sm text-lagoon-900">
         Accept this quote? The other builders are told, and you then pay a deposit of {deposit}, which Shoal holds until you confirm the finished tank.
       </p>
       <FormError message={error} />
       <div className="flex flex-wrap gap-2">
-        <Button type="button" onClick={accept} disabled={busy}>
+        <Button ref={step.confirmRef} type="button" onClick={accept} disabled={busy}>
           {busy ? "Accepting…" : "Yes, accept"}
         </Button>
-        <Button type="button" variant="secondary" onClick={() => setAsking(false)} disabled={busy}>
+        <Button type="button" variant="secondary" onClick={step.cancel} disabled={busy}>
           Not yet
         </Button>
       </div>

@@ -65,7 +65,6 @@ export function RequestForm({ draftId, plans, center, hostedStyleUrl, defaultWan
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label="Tank request">
-      <FormError message={failure} />
       <Card className="space-y-4">
         <h2 className="text-lg font-semibold">The tank</h2>
         <TankSizeFields
@@ -138,6 +137,8 @@ export function RequestForm({ draftId, plans, center, hostedStyleUrl, defaultWan
         <ImageUploader kind="site-photo" presignUrl="/api/v1/uploads/presign" completeUrl="/api/v1/uploads/complete" context={{ subjectId: draftId }} />
       </Card>
 
+      {/* Beside the button, where the eye is after pressing it: the form is long. */}
+      <FormError message={failure} />
       <Button type="submit" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Posting…" : "Post the request"}
       </Button>
