@@ -45,6 +45,13 @@ export default function FinderMap({ center, radiusKm, items, hostedStyleUrl, sel
 
   const clusters = view ? index.getClusters(view.bounds, Math.round(view.zoom)) : [];
   const selected = selectedId ? byId.get(selectedId) : undefined;
+  const popupLink = useRef<HTMLAnchorElement>(null);
+  useEffect(() => {
+    // The popup's content is mounted by the map a frame later.
+    if (!selectedId) return;
+    const frame = requestAnimationFrame(() => popupLink.current?.focus({ preventScroll: true }));
+    return () => cancelAnimationFrame(frame);
+  }, [selectedId]);
 
   function updateView() {
     const map = mapRef.current;
@@ -101,14 +108,15 @@ export default function FinderMap({ center, radiusKm, items, hostedStyleUrl, sel
         );
       })}
       {selected ? (
-        <Popup longitude={selected.lng} latitude={selected.lat} anchor="bottom" offset={18} onClose={() => onSelect(null)} closeOnClick={false}>
+        <Popup key={selected.id} longitude={selected.lng} latitude={selected.lat} anchor="bottom" offset={18} onClose={() => onSelect(null)} closeOnClick={false}>
           <div className="min-w-40 max-w-64 space-y-1 p-1 text-silt-900" data-testid="map-popup">
             <p className="font-semibold">{selected.name}</p>
             <p className="text-xs text-silt-600">
               {selected.kind === "hatchery" ? "Hatchery" : "Tank builder"} · {selected.distanceKm} km
             </p>
             <TrustBadge badge={selected.trust} role={selected.kind} />
-            <Link href={`/providers/${selected.providerId}`} className="text-sm font-semibold text-lagoon-700 underline underline-offset-2">
+            {/* Focus moves into the popup when it opens, so a keyboard user lands on what they asked for. */}
+            <Link ref={popupLink} href={`/providers/${selected.providerId}`} className="text-sm font-semibold text-lagoon-700 underline underline-offset-2">
               Open profile
             </Link>
           </div>

@@ -147,6 +147,26 @@ test.describe("keyboard only @phone", () => {
     expect(problems).toEqual([]);
   });
 
+  test("from a result, Show on map opens its popup with focus inside; closing it gives focus back", async ({ page }, info) => {
+    const problems = watchConsole(page);
+    await page.goto("/map?lat=-15.4167&lng=28.2833&radiusKm=50&kind=builder");
+    const show = page.getByTestId("result").first().getByRole("button", { name: "Show on map" });
+    await expect(show).toBeVisible();
+    await show.focus();
+    await page.keyboard.press("Enter");
+    const popup = page.getByTestId("map-popup");
+    await expect(popup).toBeVisible();
+    await expect(popup.getByRole("link", { name: "Open profile" })).toBeFocused();
+    // The popup's own close button (maplibre's, labelled "Close popup") is reached with Tab.
+    await tabTo(page, page.getByRole("button", { name: "Close popup" }), 3);
+    await page.keyboard.press("Enter");
+    await expect(popup).toHaveCount(0);
+    // Desktop: back on the same result's button; phone (map shown instead of the list): on the List tab.
+    if (info.project.name === "phone") await expect(page.getByRole("tab", { name: "List" })).toBeFocused();
+    else await expect(show).toBeFocused();
+    expect(problems).toEqual([]);
+  });
+
   test("an inline confirmation takes focus, Escape backs out and gives it back", async ({ page }) => {
     const problems = watchConsole(page);
     await page.goto("/sign-in");

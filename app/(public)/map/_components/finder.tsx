@@ -12,7 +12,11 @@ import { apiQuery, useFinderParams } from "./use-finder-params";
 // The map library is large: it loads only when a map is on screen.
 const FinderMap = dynamic(() => import("@/components/map/finder-map"), {
   ssr: false,
-  loading: () => <div className="h-full w-full animate-pulse bg-lagoon-50" aria-label="Loading the map" />,
+  loading: () => (
+    <div className="h-full w-full animate-pulse bg-lagoon-50" role="status">
+      <span className="sr-only">Loading the map…</span>
+    </div>
+  ),
 });
 
 function useWideScreen(): boolean {
@@ -51,6 +55,19 @@ export function Finder({ hostedStyleUrl }: { hostedStyleUrl: string | null }) {
     [items],
   );
   const showMap = wide || tab === "map";
+
+  // When a popup closes, focus goes back to the result it was opened from (or, on a phone showing the map,
+  // to the List tab), never to the top of the page.
+  function select(id: string | null) {
+    const closing = id === null ? selected : null;
+    setSelected(id);
+    if (!closing) return;
+    requestAnimationFrame(() => {
+      const card = document.querySelector<HTMLButtonElement>(`[data-show-on-map="${closing}"]`);
+      if (card && card.offsetParent !== null) card.focus();
+      else document.querySelector<HTMLButtonElement>('[role="tab"][aria-selected="false"]')?.focus();
+    });
+  }
 
   return (
     <div className="mx-auto flex max-w-7xl flex-col lg:h-[calc(100vh-3.75rem)] lg:flex-row">
@@ -113,7 +130,7 @@ export function Finder({ hostedStyleUrl }: { hostedStyleUrl: string | null }) {
       </div>
       <div className={`${showMap ? "block" : "hidden"} h-[70vh] lg:h-auto lg:flex-1`} data-testid="finder-map">
         {showMap ? (
-          <FinderMap center={{ lat: params.lat, lng: params.lng }} radiusKm={params.radiusKm} items={mapItems} hostedStyleUrl={hostedStyleUrl} selectedId={selected} onSelect={setSelected} />
+          <FinderMap center={{ lat: params.lat, lng: params.lng }} radiusKm={params.radiusKm} items={mapItems} hostedStyleUrl={hostedStyleUrl} selectedId={selected} onSelect={select} />
         ) : null}
       </div>
     </div>

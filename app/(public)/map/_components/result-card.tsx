@@ -27,7 +27,7 @@ export function ResultCard({ item, selected, onShowOnMap }: { item: NearbyItem; 
           </p>
           <TrustBadge badge={item.trust} role={item.kind} className="mt-1" />
           {offers.length ? <p className="mt-1 text-sm text-silt-700">{offers.join(" · ")}</p> : null}
-          <button type="button" onClick={onShowOnMap} className="mt-1 text-sm font-medium text-lagoon-700 underline underline-offset-2 lg:hidden">
+          <button type="button" onClick={onShowOnMap} data-show-on-map={item.listingId} className="mt-1 text-sm font-medium text-lagoon-700 underline underline-offset-2">
             Show on map
           </button>
         </div>
