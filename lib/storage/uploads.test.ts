@@ -237,8 +237,11 @@ describe("upload hardening (issue list)", () => {
     const { result, variants } = await expectStoredClean(await stage(jpeg));
     expect(result.widths).toEqual([160, 320, 640]);
     for (const v of variants) {
+      // expectStoredClean has checked the container holds no EXIF, XMP or ICCP chunk (RFC 9649 §2.7). Here only
+      // the fixture's long marker strings are searched for: a short one such as "GPS" now and then matches
+      // compressed image bytes by chance (it failed a CI run that way).
       const text = v.data.toString("latin1");
-      for (const trace of ["ShoalTestCam", "Exif", "xmpmeta", "GPS"]) expect(text).not.toContain(trace);
+      for (const trace of ["ShoalTestCam", "xmpmeta"]) expect(text).not.toContain(trace);
     }
   });
 
