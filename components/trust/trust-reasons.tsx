@@ -5,15 +5,24 @@ import { StarRow } from "@/components/reviews/stars";
 const EFFECT: Record<TrustEffect, { text: string; className: string; mark: string }> = {
   up: { text: "Raises the score", className: "bg-lagoon-100 px-2 text-lagoon-800", mark: "▲" },
   down: { text: "Lowers the score", className: "bg-clay-100 px-2 text-clay-700", mark: "▼" },
-  neutral: { text: "Shown, not scored", className: "text-silt-600", mark: "" },
+  neutral: { text: "No lift or penalty", className: "text-silt-600", mark: "" },
 };
 
-function EffectChip({ effect }: { effect: TrustEffect }) {
-  const e = EFFECT[effect];
+// The review record is what the score is built on, even when it sits between the marks that lift or lower it;
+// the displayed rating is for reading only and never orders anything.
+function effectText(reason: TrustReason): string {
+  if (reason.effect !== "neutral") return EFFECT[reason.effect].text;
+  if (reason.code === "reviews") return "The base of the score";
+  if (reason.code === "rating") return "For reading only";
+  return EFFECT.neutral.text;
+}
+
+function EffectChip({ reason }: { reason: TrustReason }) {
+  const e = EFFECT[reason.effect];
   return (
     <span className={`inline-flex shrink-0 items-center gap-1 self-start rounded-full py-0.5 text-xs font-medium ${e.className}`}>
       {e.mark ? <span aria-hidden="true">{e.mark}</span> : null}
-      {e.text}
+      {effectText(reason)}
     </span>
   );
 }
@@ -25,7 +34,7 @@ function Reason({ reason }: { reason: TrustReason }) {
         <p className="text-sm font-semibold text-silt-900">{reason.label}</p>
         <p className="text-sm text-silt-700">{reason.detail}</p>
       </div>
-      <EffectChip effect={reason.effect} />
+      <EffectChip reason={reason} />
     </li>
   );
 }
