@@ -42,8 +42,8 @@ export type PageSpec = {
 };
 
 type ImageCheck = { src: string; natural: number; drawn: number; ratio: number };
-type Figures = { jsBytes: number; totalBytes: number; lcp: number; cls: number; tbt: number; lcpWhat: string; scripts: { path: string; bytes: number }[]; unfinished: number };
-type Row = { spec: PageSpec; url: string; f: Omit<Figures, "scripts" | "unfinished" | "lcpWhat">; lcpWhat: string; build: FirstLoad; extraScripts: { path: string; bytes: number }[]; unfinished: number; images: ImageCheck[]; unloadedImages: number; load: number };
+type Figures = { jsBytes: number; totalBytes: number; ttfb: number; fcp: number; lcp: number; cls: number; tbt: number; lcpWhat: string; byType: Record<string, number>; scripts: { path: string; bytes: number }[]; unfinished: number };
+type Row = { spec: PageSpec; url: string; f: Omit<Figures, "scripts" | "unfinished" | "lcpWhat" | "byType">; lcpWhat: string; byType: Record<string, number>; build: FirstLoad; extraScripts: { path: string; bytes: number }[]; unfinished: number; images: ImageCheck[]; unloadedImages: number; load: number };
 
 /** Refuses to measure a server left over from another run (someone else's bench uses the same fixed ports). */
 async function assertPortFree(port: number): Promise<void> {
@@ -96,16 +96,21 @@ async function measure(cdp: CDPSession, url: string, page: Page): Promise<Figure
   await page.waitForTimeout(SETTLE_MS);
   const m = await page.evaluate(() => {
     const w = window as unknown as { __lcp: number; __cls: number; __tbt: number; __lcpWhat: string };
-    return { lcp: w.__lcp, cls: w.__cls, tbt: w.__tbt, lcpWhat: w.__lcpWhat };
+    // Time to first byte and first contentful paint, to tell a slow server from a slow page when LCP is late.
+    const nav = performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming | undefined;
+    const fcp = performance.getEntriesByName("first-contentful-paint")[0]?.startTime ?? 0;
+    return { lcp: w.__lcp, cls: w.__cls, tbt: w.__tbt, lcpWhat: w.__lcpWhat, ttfb: nav?.responseStart ?? 0, fcp };
   });
   cdp.off("Network.responseReceived", onResponse);
   cdp.off("Network.loadingFinished", onFinished);
   cdp.off("Network.loadingFailed", onFailed);
   let jsBytes = 0;
   let totalBytes = 0;
+  const byType: Record<string, number> = {};
   const scripts: { path: string; bytes: number }[] = [];
   for (const s of sizes.values()) {
     totalBytes += s.bytes;
+    byType[s.type] = (byType[s.type] ?? 0) + s.bytes;
     if (s.type === "Script") {
       jsBytes += s.bytes;
       scripts.push({ path: decodeURIComponent(new URL(s.url).pathname), bytes: s.bytes });
@@ -113,7 +118,7 @@ async function measure(cdp: CDPSession, url: string, page: Page): Promise<Figure
   }
   // Responses still arriving when the page went quiet (none, if networkidle did its job).
   const unfinished = [...sizes.keys()].filter((id) => !finished.has(id)).length;
-  return { jsBytes, totalBytes, ...m, scripts, unfinished };
+  return { jsBytes, totalBytes, ...m, byType, scripts, unfinished };
 }
 
 /**
@@ -237,8 +242,8 @@ function printTable(rows: Row[], loadBefore: number[]): void {
     `\nPages on a phone (${VIEWPORT.width}×${VIEWPORT.height} @${DPR}x, 4× CPU slowdown, Slow 4G), median of ${RUNS} cold loads; build ${DIST_DIR}; load average before ${loadBefore.map((l) => l.toFixed(2)).join(" ")}`,
   );
   console.log("JS build = first-load chunks from the build manifests, gzip -9 (node zlib); JS net = Script bytes on the wire as `next start` serves them (gzip), incl. chunks loaded after hydration.");
-  const header = ["page", "JS build KB", "≤130", "JS net KB", "all KB", "LCP ms", "≤2500", "CLS", "≤0.1", "TBT ms", "img max×", "≤2", "load1"];
-  const widths = [16, 11, 8, 9, 8, 7, 7, 6, 7, 7, 9, 7, 6];
+  const header = ["page", "JS build KB", "≤130", "JS net KB", "all KB", "TTFB ms", "FCP ms", "LCP ms", "≤2500", "CLS", "≤0.1", "TBT ms", "img max×", "≤2", "load1"];
+  const widths = [16, 11, 8, 9, 8, 7, 7, 7, 7, 6, 7, 7, 9, 7, 6];
   const line = (cells: string[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i] ?? 8) : c.padStart(widths[i] ?? 8))).join(" ");
   console.log(line(header));
   for (const r of rows) {
@@ -250,6 +255,8 @@ function printTable(rows: Row[], loadBefore: number[]): void {
         r.spec.map ? "map" : verdict(r.build.bytes <= BUDGET.js),
         kb(r.f.jsBytes),
         kb(r.f.totalBytes),
+        String(Math.round(r.f.ttfb)),
+        String(Math.round(r.f.fcp)),
         String(Math.round(r.f.lcp)),
         verdict(r.f.lcp <= BUDGET.lcp),
         r.f.cls.toFixed(3),
@@ -351,9 +358,10 @@ export async function benchPages(pages: PageSpec[]): Promise<void> {
       rows.push({
         spec,
         url,
-        f: { jsBytes: median(runs.map((r) => r.jsBytes)), totalBytes: median(runs.map((r) => r.totalBytes)), lcp: median(runs.map((r) => r.lcp)), cls: median(runs.map((r) => r.cls)), tbt: median(runs.map((r) => r.tbt)) },
+        f: { jsBytes: median(runs.map((r) => r.jsBytes)), totalBytes: median(runs.map((r) => r.totalBytes)), ttfb: median(runs.map((r) => r.ttfb)), fcp: median(runs.map((r) => r.fcp)), lcp: median(runs.map((r) => r.lcp)), cls: median(runs.map((r) => r.cls)), tbt: median(runs.map((r) => r.tbt)) },
         build,
         lcpWhat: lastRun?.lcpWhat ?? "",
+        byType: lastRun?.byType ?? {},
         extraScripts,
         unfinished: Math.max(...runs.map((r) => r.unfinished)),
         images: images.images,
@@ -363,7 +371,7 @@ export async function benchPages(pages: PageSpec[]): Promise<void> {
     }
     printTable(rows, loadBefore);
     // The figures as JSON too (BENCH_PAGES_OUT to keep them elsewhere), to compare two builds without reading the table by eye.
-    writeFileSync(process.env.BENCH_PAGES_OUT ?? join(dir, "figures.json"), JSON.stringify(rows.map((r) => ({ name: r.spec.name, url: r.url, route: r.build.route, firstLoadJs: r.build.bytes, files: r.build.files, ...r.f, lcpWhat: r.lcpWhat, extraScripts: r.extraScripts, unfinished: r.unfinished, images: r.images, load: r.load })), null, 2));
+    writeFileSync(process.env.BENCH_PAGES_OUT ?? join(dir, "figures.json"), JSON.stringify(rows.map((r) => ({ name: r.spec.name, url: r.url, route: r.build.route, firstLoadJs: r.build.bytes, files: r.build.files, ...r.f, lcpWhat: r.lcpWhat, bytesByType: r.byType, extraScripts: r.extraScripts, unfinished: r.unfinished, images: r.images, load: r.load })), null, 2));
   } finally {
     await browser.close();
     try {
