@@ -31,6 +31,10 @@ const envSchema = z.object({
   // Shared secret of the scheduled sweep (POST /api/cron/sweep with "Authorization: Bearer <secret>").
   CRON_SECRET: z.string().min(16, "CRON_SECRET must be at least 16 characters").default("cron_local_shoal_sweep"),
   MAP_STYLE_URL: z.url().optional(),
+  // Sign-in and sign-up attempts allowed per client address per minute (better-auth's database store). The
+  // end-to-end run raises them: its whole suite signs in from one address, 127.0.0.1.
+  AUTH_SIGN_IN_PER_MINUTE: z.coerce.number().int().min(1).max(100_000).default(30),
+  AUTH_SIGN_UP_PER_MINUTE: z.coerce.number().int().min(1).max(100_000).default(20),
   // Enables the full-scan search strategy that the benchmark compares against. Never in production.
   SHOAL_BENCH: boolish.default(false),
   DEFAULT_CURRENCY: z.string().regex(/^[A-Z]{3}$/, "ISO 4217 code").default("ZMW"),

@@ -69,8 +69,8 @@ export const auth = betterAuth({
     window: 60,
     max: 200,
     customRules: {
-      "/sign-in/email": { window: 60, max: 30 },
-      "/sign-up/email": { window: 60, max: 20 },
+      "/sign-in/email": { window: 60, max: env.AUTH_SIGN_IN_PER_MINUTE },
+      "/sign-up/email": { window: 60, max: env.AUTH_SIGN_UP_PER_MINUTE },
       "/request-password-reset": { window: 60, max: 5 },
     },
   },
